@@ -1,0 +1,51 @@
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+// One file configures the client build and the three test projects:
+// unit (pure shared/ and machines/), api (Supertest against a private MariaDB)
+// and e2e (Chromium against the built client served by the real server).
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 900 },
+  server: {
+    port: 5173,
+    proxy: { '/api': 'http://127.0.0.1:5180' },
+  },
+  test: {
+    projects: [
+      {
+        extends: false,
+        test: {
+          name: 'unit',
+          include: ['tests/shared/**/*.test.ts', 'tests/machines/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: false,
+        test: {
+          name: 'api',
+          include: ['tests/server/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/api-global-setup.ts'],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        extends: false,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/e2e-global-setup.ts'],
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+    ],
+  },
+});
