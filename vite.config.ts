@@ -15,7 +15,6 @@ export default defineConfig({
   test: {
     projects: [
       {
-        extends: false,
         test: {
           name: 'unit',
           include: ['tests/shared/**/*.test.ts', 'tests/machines/**/*.test.ts'],
@@ -23,7 +22,6 @@ export default defineConfig({
         },
       },
       {
-        extends: false,
         test: {
           name: 'api',
           include: ['tests/server/**/*.test.ts'],
@@ -35,7 +33,6 @@ export default defineConfig({
         },
       },
       {
-        extends: false,
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],

@@ -1,0 +1,77 @@
+// createApp() builds the Express application and never listens: the tests use
+// it directly, server/index.ts listens. Request flow: security headers → body
+// parser → session → passport → timeouts → same-origin + CSRF → route guard →
+// validation → service → presenter → JSON; errors end in one handler.
+import express, { type Express } from 'express';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { csrfSync } from 'csrf-sync';
+import type { AppDeps } from './app-deps';
+import { initModels } from './models';
+import { createHelmet, requireSameOrigin } from './middlewares/security';
+import { attachAbility, createSessionMiddleware, enforceSessionTimeouts } from './middlewares/session';
+import { denyUndeclared } from './middlewares/authorize';
+import { apiNotFound, createErrorHandler } from './middlewares/error-handler';
+import { createPassport } from './auth/passport';
+import { healthRoutes } from './routes/health.routes';
+import { sessionRoutes } from './routes/session.routes';
+import { featureRoutes } from './routes';
+
+export interface CreateAppOptions {
+  /** Folder of the built client; served with an SPA fallback when it exists. */
+  clientDir?: string;
+}
+
+export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Express & { close(): void } {
+  const { config, sequelize, logger } = deps;
+  initModels(sequelize);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy ? 1 : false);
+  app.use(createHelmet(config.session.cookieSecure));
+
+  const api = express.Router();
+  api.use(denyUndeclared);
+  api.use(healthRoutes(deps));
+  api.use(express.json({ limit: '100kb', strict: true }));
+
+  const { middleware: sessionMiddleware, store } = createSessionMiddleware(sequelize, config);
+  const passport = createPassport(sequelize, config.signIn.lockThreshold);
+  api.use(sessionMiddleware);
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(enforceSessionTimeouts(config));
+  api.use(attachAbility);
+  api.use(requireSameOrigin);
+
+  const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
+  api.use((req, res, next) => {
+    // Signing in carries no token yet (there is no session); the same-origin check above still applies.
+    if (req.method === 'POST' && req.path === '/session') return next();
+    csrf.csrfSynchronisedProtection(req, res, next);
+  });
+
+  api.use(sessionRoutes(deps, passport, csrf));
+  for (const factory of featureRoutes) api.use(factory(deps));
+  api.use(apiNotFound);
+  api.use(createErrorHandler(logger));
+  app.use('/api', api);
+
+  const clientDir = options.clientDir;
+  if (clientDir && existsSync(path.join(clientDir, 'index.html'))) {
+    app.use('/assets', express.static(path.join(clientDir, 'assets'), { immutable: true, maxAge: '1y', index: false }));
+    app.use(express.static(clientDir, { index: false }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(clientDir, 'index.html'));
+    });
+  }
+
+  return Object.assign(app, {
+    close() {
+      // The session store sweeps expired sessions on a timer; stop it with the app.
+      (store as unknown as { stopExpiringSessions?: () => void }).stopExpiringSessions?.();
+    },
+  });
+}

@@ -1,0 +1,106 @@
+// The environment is parsed once, here, and nothing else reads process.env.
+import { z } from 'zod';
+
+const booleanFromEnv = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((value) => value === 'true' || value === '1');
+
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(1).max(65535).default(5180),
+  /** Public address used in e-mail links; defaults to http://HOST:PORT. */
+  PUBLIC_URL: z.string().url().optional(),
+  DATABASE_URL: z.string().regex(/^mariadb:\/\//, 'DATABASE_URL must start with mariadb://'),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(30),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(12),
+  /** Set when served over TLS (directly or behind a proxy that terminates it): cookies become Secure. */
+  COOKIE_SECURE: booleanFromEnv.default(false),
+  TRUST_PROXY: booleanFromEnv.default(false),
+  SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  SIGNIN_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  ACCOUNT_LOCK_THRESHOLD: z.coerce.number().int().min(1).default(10),
+  SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default('Whorl <whorl@localhost>'),
+  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(25 * 1024 * 1024),
+  UPLOAD_MAX_FILES: z.coerce.number().int().min(1).default(10),
+  STORAGE_DRIVER: z.enum(['local', 's3']).default('local'),
+  STORAGE_DIR: z.string().default('.data/evidence'),
+  S3_ENDPOINT: z.string().optional(),
+  S3_BUCKET: z.string().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  SCHEDULER: booleanFromEnv.default(true),
+  SCHEDULER_INTERVAL_SECONDS: z.coerce.number().int().min(1).default(60),
+  LOG_LEVEL: z.enum(['silent', 'error', 'info', 'debug']).default('info'),
+});
+
+export type Env = z.infer<typeof EnvSchema>;
+
+export interface AppConfig {
+  env: Env['NODE_ENV'];
+  host: string;
+  port: number;
+  publicUrl: string;
+  databaseUrl: string;
+  databasePoolMax: number;
+  session: { secret: string; idleMinutes: number; absoluteHours: number; cookieSecure: boolean };
+  trustProxy: boolean;
+  signIn: { rateLimit: number; rateWindowMinutes: number; lockThreshold: number };
+  mail: { smtpUrl?: string; from: string };
+  uploads: { maxBytes: number; maxFiles: number };
+  storage: {
+    driver: 'local' | 's3';
+    dir: string;
+    s3: { endpoint?: string; bucket?: string; region: string; accessKeyId?: string; secretAccessKey?: string };
+  };
+  scheduler: { enabled: boolean; intervalSeconds: number };
+  logLevel: Env['LOG_LEVEL'];
+}
+
+export function loadConfig(source: Record<string, string | undefined> = process.env): AppConfig {
+  const parsed = EnvSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const env = parsed.data;
+  return {
+    env: env.NODE_ENV,
+    host: env.HOST,
+    port: env.PORT,
+    publicUrl: env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`,
+    databaseUrl: env.DATABASE_URL,
+    databasePoolMax: env.DATABASE_POOL_MAX,
+    session: {
+      secret: env.SESSION_SECRET,
+      idleMinutes: env.SESSION_IDLE_MINUTES,
+      absoluteHours: env.SESSION_ABSOLUTE_HOURS,
+      cookieSecure: env.COOKIE_SECURE,
+    },
+    trustProxy: env.TRUST_PROXY,
+    signIn: {
+      rateLimit: env.SIGNIN_RATE_LIMIT,
+      rateWindowMinutes: env.SIGNIN_RATE_WINDOW_MINUTES,
+      lockThreshold: env.ACCOUNT_LOCK_THRESHOLD,
+    },
+    mail: { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM },
+    uploads: { maxBytes: env.UPLOAD_MAX_BYTES, maxFiles: env.UPLOAD_MAX_FILES },
+    storage: {
+      driver: env.STORAGE_DRIVER,
+      dir: env.STORAGE_DIR,
+      s3: {
+        endpoint: env.S3_ENDPOINT,
+        bucket: env.S3_BUCKET,
+        region: env.S3_REGION,
+        accessKeyId: env.S3_ACCESS_KEY_ID,
+        secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+      },
+    },
+    scheduler: { enabled: env.SCHEDULER, intervalSeconds: env.SCHEDULER_INTERVAL_SECONDS },
+    logLevel: env.LOG_LEVEL,
+  };
+}

@@ -1,0 +1,20 @@
+// Seeds the demo scenario into an empty database. Each step is a file of its
+// own; a feature that brings demo records adds its step to the list.
+import type { Sequelize } from 'sequelize';
+import { initModels, User } from '../../models';
+import { seedPeople } from './people.seed';
+import type { SeedContext, SeedStep } from './seed-context';
+
+export const seedSteps: SeedStep[] = [seedPeople];
+
+export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
+  initModels(sequelize);
+  return (await User.count()) === 0;
+}
+
+export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<SeedContext> {
+  initModels(sequelize);
+  const context: SeedContext = { sequelize, now, users: {}, areas: {}, refs: {} };
+  for (const step of seedSteps) await step(context);
+  return context;
+}

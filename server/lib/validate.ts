@@ -1,0 +1,20 @@
+import type { Request } from 'express';
+import type { z } from 'zod';
+import { AppError } from './app-error';
+import { zodIssuesToDetails } from '../middlewares/error-handler';
+
+function parseWith<S extends z.ZodType>(schema: S, value: unknown, where: string): z.infer<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    throw new AppError(`Some ${where} fields are not valid`, {
+      status: 400,
+      code: 'invalid_input',
+      details: zodIssuesToDetails(result.error),
+    });
+  }
+  return result.data;
+}
+
+export const parseBody = <S extends z.ZodType>(schema: S, req: Request) => parseWith(schema, req.body ?? {}, 'body');
+export const parseQuery = <S extends z.ZodType>(schema: S, req: Request) => parseWith(schema, { ...req.query }, 'query');
+export const parseParams = <S extends z.ZodType>(schema: S, req: Request) => parseWith(schema, { ...req.params }, 'path');

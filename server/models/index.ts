@@ -1,0 +1,29 @@
+// Every model is initialised and associated here, once per Sequelize instance.
+// Add a model: write its file with an init function, call it below, wire its associations.
+import type { Sequelize } from 'sequelize';
+import { Area, initArea } from './area';
+import { User, initUser } from './user';
+import { RoleAssignment, initRoleAssignment } from './role-assignment';
+import { TrailEntry, initTrailEntry, type TrailChanges } from './trail-entry';
+import { Session, initSession } from './session';
+
+export { Area, User, RoleAssignment, TrailEntry, Session };
+export type { TrailChanges };
+
+let initialisedFor: Sequelize | undefined;
+
+export function initModels(sequelize: Sequelize): void {
+  if (initialisedFor === sequelize) return;
+  initialisedFor = sequelize;
+  initArea(sequelize);
+  initUser(sequelize);
+  initRoleAssignment(sequelize);
+  initTrailEntry(sequelize);
+  initSession(sequelize);
+
+  User.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
+  Area.hasMany(User, { as: 'members', foreignKey: 'areaId' });
+  Area.belongsTo(User, { as: 'lead', foreignKey: 'leadUserId', constraints: false });
+  User.hasMany(RoleAssignment, { as: 'roleAssignments', foreignKey: 'userId' });
+  RoleAssignment.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+}

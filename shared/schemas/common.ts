@@ -1,0 +1,30 @@
+import { z } from 'zod';
+
+export const IdParamSchema = z.object({ id: z.coerce.number().int().positive() }).strict();
+
+/** The common list query: page, pageSize, sort ("field" or "-field" for descending) and q. */
+export const ListQueryBaseSchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+  sort: z
+    .string()
+    .regex(/^-?[a-zA-Z][a-zA-Z0-9]*$/, 'sort must be a field name, optionally prefixed with "-"')
+    .optional(),
+  q: z.string().trim().max(200).optional(),
+});
+
+export type ListQuery = z.infer<typeof ListQueryBaseSchema>;
+
+export interface ListResponse<T> {
+  items: T[];
+  total: number;
+}
+
+export const IsoDateSchema = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'use a date like 2026-12-31');
+
+/** Parses a "field" / "-field" sort against an allow-list; falls back to the default. */
+export function parseSort<T extends string>(sort: string | undefined, allowed: readonly T[], fallback: `${'' | '-'}${T}`) {
+  const value = sort && allowed.includes(sort.replace(/^-/, '') as T) ? sort : fallback;
+  const descending = value.startsWith('-');
+  return { field: value.replace(/^-/, '') as T, direction: descending ? ('DESC' as const) : ('ASC' as const) };
+}

@@ -1,0 +1,18 @@
+import type { Role } from '../roles';
+
+/** The signed-in person as the server hands them to the client. */
+export interface SessionUser {
+  id: number;
+  email: string;
+  displayName: string;
+  roles: Role[];
+  areaId: number | null;
+  areaName: string | null;
+}
+
+export interface SessionResponse {
+  user: SessionUser;
+  /** CASL rules packed with packRules(); unpack with unpackRules(). */
+  rules: unknown[];
+  csrfToken: string;
+}
