@@ -12,6 +12,12 @@ export function createMigrator(sequelize: Sequelize) {
   return new Umzug<MigrationContext>({
     migrations: {
       glob: ['*.ts', { cwd: migrationsDir }],
+      // Imported from here (not inside umzug) so that tsx or Vite's runner loads the TypeScript.
+      resolve: ({ name, path: file, context }) => ({
+        name,
+        up: async () => (await import(file!)).up({ context }),
+        down: async () => (await import(file!)).down({ context }),
+      }),
     },
     context: { queryInterface: sequelize.getQueryInterface(), sequelize },
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),

@@ -12,6 +12,7 @@ export type { TrailChanges };
 
 let initialisedFor: Sequelize | undefined;
 
+/** Binds every model to this instance (idempotent; a different instance rebinds them). */
 export function initModels(sequelize: Sequelize): void {
   if (initialisedFor === sequelize) return;
   initialisedFor = sequelize;
