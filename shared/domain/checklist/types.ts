@@ -1,0 +1,97 @@
+// Shapes the checklist engine returns, and the context every rule reads.
+import type { Policy } from '../policy';
+import type { Vec3 } from '../orientation';
+import type { Technique } from '../../schemas/technique';
+import type { RegisterFacts } from './registers';
+
+export const RULE_IDS = [
+  'orientation-coverage',
+  'center-effect',
+  'scan-index',
+  'penetration-depth',
+  'edge-effect',
+  'fill-factor',
+  'limit-frequency',
+  'ferromagnetic',
+  'reference-standard',
+  'coil-size',
+  'personnel',
+  'equipment',
+] as const;
+
+export type RuleId = (typeof RULE_IDS)[number];
+export type RuleStatus = 'pass' | 'fail' | 'warn' | 'not_applicable';
+export type Verdict = 'conforms' | 'does-not-conform';
+
+export type ResultValue = number | string | boolean | null;
+
+export interface RuleResult {
+  rule: RuleId;
+  status: RuleStatus;
+  /** The flaw's `id` when the result is about one flaw. */
+  flaw?: string;
+  /** Zero-based index into `technique.coils` when the result is about one coil (messages say "coil 1" for index 0). */
+  coil?: number;
+  /** For an auditor: what is wrong, why, and what would fix it. */
+  message: string;
+  /** The numbers behind the result, units in the names. */
+  values: Record<string, ResultValue>;
+  /** The source the rule rests on, with its tag ([pub], [trade], [mem], product default). */
+  basis: string;
+}
+
+export interface ChecklistValues {
+  conductivityMsPerM: number;
+  resistivityMicroOhmCm: number;
+  /** standardDepthMm[c][i]: δ of coil c at its frequency frequenciesHz[i]. */
+  standardDepthMm: number[][];
+  /** effectiveDepthMm[c][i] = k·δ with the policy's penetration factor k (3 by default). */
+  effectiveDepthMm: number[][];
+  /** Limit frequency f_g of the part (solid bar, or thin-walled tube); null for plates and bores. */
+  limitFrequencyHz: number | null;
+  /** frequencyRatio[c][i] = f/f_g for encircling and bobbin coils; null for others or without f_g. */
+  frequencyRatio: (number | null)[][];
+  /** fillFactor[c]: η for encircling and bobbin coils; null for others. */
+  fillFactor: (number | null)[];
+  /** orientationSensitivity[f][c]: |current · normal| of flaw f for coil c. */
+  orientationSensitivity: number[][];
+}
+
+export interface ChecklistSummary {
+  pass: number;
+  fail: number;
+  warn: number;
+  not_applicable: number;
+}
+
+export interface ChecklistOutput {
+  code: string;
+  revision: string;
+  verdict: Verdict;
+  summary: ChecklistSummary;
+  values: ChecklistValues;
+  results: RuleResult[];
+  /** The policy the rules used: organisation policy with the technique's own override merged over it. */
+  policy: Policy;
+}
+
+export interface EvaluateOptions {
+  /** The organisation's policy settings, merged over DEFAULT_POLICY (the technique's `policy` is merged over these). */
+  policy?: Partial<Policy>;
+  /** Facts from the registers; the `personnel` and `equipment` rules run only when these are given. */
+  registers?: RegisterFacts;
+  /** The date certificates and calibrations are judged at (default: now). */
+  now?: Date;
+}
+
+/** Everything a rule reads: the technique, the effective policy and the values worked out once. */
+export interface RuleContext {
+  technique: Technique;
+  policy: Policy;
+  registers: RegisterFacts | undefined;
+  now: Date;
+  values: ChecklistValues;
+  flawNormals: Vec3[];
+}
+
+export type Rule = (context: RuleContext, results: RuleResult[]) => void;
