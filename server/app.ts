@@ -48,7 +48,8 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
   const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
   api.use((req, res, next) => {
     // Signing in carries no token yet (there is no session); the same-origin check above still applies.
-    if (req.method === 'POST' && req.path === '/session') return next();
+    // Without a signed-in user there is nothing to forge: the route's guard answers 401.
+    if ((req.method === 'POST' && req.path === '/session') || !res.locals.user) return next();
     csrf.csrfSynchronisedProtection(req, res, next);
   });
 
