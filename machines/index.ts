@@ -106,7 +106,7 @@ export const RECORD_KINDS = Object.keys(recordMachines) as RecordKind[];
  */
 export function restoreRecordSnapshot<K extends RecordKind>(
   kind: K,
-  stored: StoredSnapshot | string,
+  stored: StoredSnapshot | string | unknown,
   storedVersion: number,
 ): RecordSnapshot<K> {
   const entry = recordMachines[kind];

@@ -105,7 +105,7 @@ function effectNames(actions: ReadonlyArray<{ type: string }>): string[] {
  */
 export function restoreSnapshot<M extends AnyStateMachine>(
   machine: M,
-  stored: StoredSnapshot | string,
+  stored: StoredSnapshot | string | unknown,
   options: RestoreOptions = {},
 ): SnapshotFrom<M> {
   const fail: (detail: string) => never = (detail) => {

@@ -7,6 +7,7 @@ import {
   type AuditContext,
   type AuditEvent,
 } from '../../machines/audit.machine';
+import { recordMachines } from '../../machines';
 import { describeTransitionTable, effectNamesOf, snapshotIn, type EventCase } from './helpers/transition-table';
 import { replay, shortestPathByState, simplePaths } from './helpers/model-paths';
 
@@ -39,6 +40,7 @@ describeTransitionTable({
   baseContext,
   validCases,
   invalidCases,
+  allowedEvents: (snapshot) => recordMachines.audit.allowedEvents(snapshot, { openFindingCount: 0 }),
   expected: {
     planned: {
       START_FIELDWORK: ['fieldwork'],

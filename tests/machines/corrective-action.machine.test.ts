@@ -7,6 +7,7 @@ import {
   type CorrectiveActionContext,
   type CorrectiveActionEvent,
 } from '../../machines/corrective-action.machine';
+import { recordMachines } from '../../machines';
 import { describeTransitionTable, effectNamesOf, snapshotIn, type EventCase } from './helpers/transition-table';
 import { replay, shortestPathByState, simplePaths } from './helpers/model-paths';
 
@@ -124,6 +125,7 @@ describeTransitionTable({
   baseContext,
   validCases,
   invalidCases,
+  allowedEvents: (snapshot) => recordMachines.action.allowedEvents(snapshot, { evidenceCount: 1 }),
   expected: {
     assigned: { START: ['investigating'] },
     investigating: {

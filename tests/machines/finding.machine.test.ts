@@ -7,6 +7,7 @@ import {
   type FindingContext,
   type FindingEvent,
 } from '../../machines/finding.machine';
+import { recordMachines } from '../../machines';
 import { describeTransitionTable, effectNamesOf, snapshotIn, type EventCase } from './helpers/transition-table';
 import { replay, shortestPathByState, simplePaths } from './helpers/model-paths';
 
@@ -61,6 +62,7 @@ describeTransitionTable({
   baseContext,
   validCases,
   invalidCases,
+  allowedEvents: (snapshot) => recordMachines.finding.allowedEvents(snapshot, {}),
   expected: {
     raised: {
       SUBMIT: ['in_review', 'notifyFindingSubmitted'],

@@ -26,6 +26,11 @@ export interface TransitionTableSpec<M extends AnyStateMachine> {
   invalidCases: ReadonlyArray<EventCase<M>>;
   /** state → case name → outcome, for the allowed pairs only. */
   expected: Readonly<Record<string, Readonly<Record<string, Outcome>>>>;
+  /**
+   * The registry's payload-free answer (probe events + facts that let every
+   * valid case pass); checked to agree with the table in every state.
+   */
+  allowedEvents?: (snapshot: SnapshotFrom<M>) => readonly string[];
 }
 
 interface MachineSnapshotLike {
@@ -101,6 +106,22 @@ export function describeTransitionTable<M extends AnyStateMachine>(spec: Transit
         expect(effects).toEqual([]);
       }
     });
+
+    const { allowedEvents } = spec;
+    if (allowedEvents) {
+      it.each(validRows)('in $state, the allowed events agree with the table for $name', ({ state, eventCase, outcome }) => {
+        const snapshot = snapshotIn(spec.machine, state, contextFor(spec, eventCase));
+        const offered = allowedEvents(snapshot).includes(eventCase.event.type);
+        const someCaseOfTypeAllowed = spec.validCases.some(
+          (other) =>
+            other.event.type === eventCase.event.type &&
+            spec.expected[state]?.[other.name] !== undefined &&
+            JSON.stringify(other.context ?? {}) === JSON.stringify(eventCase.context ?? {}),
+        );
+        if (outcome) expect(offered).toBe(true);
+        expect(offered).toBe(someCaseOfTypeAllowed);
+      });
+    }
 
     const invalidRows = spec.states.flatMap((state) =>
       spec.invalidCases.map((eventCase) => ({ state, name: eventCase.name, eventCase })),
