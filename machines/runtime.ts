@@ -132,8 +132,8 @@ export function restoreSnapshot<M extends AnyStateMachine>(
   if (options.contextSchema) {
     const result = options.contextSchema.safeParse(context);
     if (!result.success) {
-      const fields = result.error.issues.map((issue) => issue.path.join('.') || '(context)').join(', ');
-      fail(`its context does not fit (${fields})`);
+      const problems = result.error.issues.map((issue) => `${issue.path.join('.') || 'context'}: ${issue.message}`);
+      fail(`its context does not fit: ${problems.join('; ')}`);
     }
   }
   let snapshot: AnyMachineSnapshot;

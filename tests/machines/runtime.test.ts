@@ -192,8 +192,8 @@ describe('persist and restore', () => {
     ['a nested state value', { value: { in_progress: 'x' }, context }, /is not one of/],
     ['status "error"', { value: 'in_progress', context, status: 'error' }, /status is "error"/],
     ['no context', { value: 'in_progress' }, /context is missing/],
-    ['a context of the wrong shape', { value: 'in_progress', context: { ...context, dueDate: 'soon' } }, /dueDate/],
-    ['a context with a field this version lacks', { value: 'in_progress', context: { ...context, owner: 3 } }, /context/],
+    ['a context of the wrong shape', { value: 'in_progress', context: { ...context, dueDate: 'soon' } }, /context does not fit: dueDate: /],
+    ['a context with a field this version lacks', { value: 'in_progress', context: { ...context, owner: 3 } }, /context does not fit: context: .*"owner"/],
     ['a string that is not JSON', '{"value":', /not valid JSON/],
     ['null', 'null', /not an object/],
   ])('when the stored snapshot has %s, then restoring throws SnapshotRestoreError', (_label, stored, message) => {
