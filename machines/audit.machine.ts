@@ -41,7 +41,7 @@ export const AUDIT_SIGNED_EVENTS = { ISSUE: 'audit report issued' } as const sat
 >;
 
 /** Events only the server sends (never accepted from a request body). */
-export const AUDIT_SERVER_EVENTS = [] as const satisfies readonly AuditEventType[];
+export const AUDIT_SERVER_EVENTS: readonly AuditEventType[] = [];
 
 export const AuditContextSchema = z
   .object({

@@ -67,7 +67,7 @@ export const CORRECTIVE_ACTION_SIGNED_EVENTS = { VERIFY: 'corrective action veri
   Record<CorrectiveActionEventType, string>
 >;
 
-export const CORRECTIVE_ACTION_SERVER_EVENTS = ['REOPEN'] as const satisfies readonly CorrectiveActionEventType[];
+export const CORRECTIVE_ACTION_SERVER_EVENTS: readonly CorrectiveActionEventType[] = ['REOPEN'];
 
 const PlanStepSchema = z.object({ description: z.string(), dueDate: z.iso.date() }).strict();
 export type PlanStep = z.infer<typeof PlanStepSchema>;

@@ -65,7 +65,7 @@ export const FINDING_SIGNED_EVENTS = { CLOSE: 'closure approved' } as const sati
   Record<FindingEventType, string>
 >;
 
-export const FINDING_SERVER_EVENTS = ['ACTION_VERIFIED'] as const satisfies readonly FindingEventType[];
+export const FINDING_SERVER_EVENTS: readonly FindingEventType[] = ['ACTION_VERIFIED'];
 
 export const FindingContextSchema = z
   .object({
