@@ -21,8 +21,10 @@ export const coilSize: Rule = ({ technique, policy, values }, results) => {
     return;
   }
   const fraction = policy.shortCrackFraction;
+  let any = false;
   flaws.forEach((flaw, f) => {
     if (flaw.orientation === 'laminar') return; // no coil finds it (orientation-coverage)
+    any = true;
     const crossing = scanning.filter((c) => values.orientationSensitivity[f][c] + 1e-9 >= policy.orientationSensitivityMin);
     const candidates = crossing.length > 0 ? crossing : scanning;
     let smallest = candidates[0];
@@ -54,4 +56,13 @@ export const coilSize: Rule = ({ technique, policy, values }, results) => {
       });
     }
   });
+  if (!any) {
+    results.push({
+      rule: 'coil-size',
+      status: 'not_applicable',
+      message: 'Every expected flaw is laminar: no coil finds it at any size (see orientation-coverage).',
+      values: {},
+      basis: BASIS,
+    });
+  }
 };

@@ -1,0 +1,65 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { evaluateTechnique, parseTechnique, RULE_IDS } from '../../../shared/domain/checklist/index';
+import { DEMO_TECHNIQUE_NOTES, DEMO_TECHNIQUES } from '../../../shared/domain/demo-techniques';
+import { resultOf } from './techniques';
+
+// The shared example techniques (copied into tests/shared/fixtures) and their documented verdicts.
+function fixture(name: string): unknown {
+  return JSON.parse(readFileSync(new URL(`../fixtures/${name}.json`, import.meta.url), 'utf8'));
+}
+
+describe('shared examples', () => {
+  it('wheel-bead-seat conforms (shielded coil near an edge with a guide and an edge notch)', () => {
+    const output = evaluateTechnique(fixture('wheel-bead-seat'));
+    expect(output.verdict).toBe('conforms');
+    expect(output.code).toBe('TAC-ET-004');
+    expect(resultOf(output, 'edge-effect').status).toBe('pass');
+    expect(output.results.filter((result) => result.rule === 'orientation-coverage').every((result) => result.status === 'pass')).toBe(true);
+  });
+
+  it('heat-exchanger-bobbin does not conform: the circumferential crack is missed, the rest as documented', () => {
+    const output = evaluateTechnique(fixture('heat-exchanger-bobbin'));
+    expect(output.verdict).toBe('does-not-conform');
+    // README: fill factor (15.5 / 16.57)² ≈ 0.875 passes.
+    expect(resultOf(output, 'fill-factor')).toMatchObject({ status: 'pass' });
+    expect(output.values.fillFactor[0]).toBeCloseTo(0.875, 3);
+    // README: the axial crack is covered, the circumferential one is not.
+    expect(resultOf(output, 'orientation-coverage', 'axial-crack').status).toBe('pass');
+    expect(resultOf(output, 'orientation-coverage', 'circ-crack').status).toBe('fail');
+    // README: at 40 kHz δ ≈ 0.62 mm and 3δ ≈ 1.87 mm, so the far-side depth of 1.0 mm is reached.
+    expect(output.values.standardDepthMm[0][0]).toBeCloseTo(0.62, 2);
+    expect(output.values.effectiveDepthMm[0][0]).toBeCloseTo(1.87, 2);
+    expect(resultOf(output, 'penetration-depth', 'axial-crack').status).toBe('pass');
+    // The only failure is the orientation gap.
+    expect(output.results.filter((result) => result.status === 'fail').map((result) => result.rule)).toEqual(['orientation-coverage']);
+  });
+
+  it('reports every rule at least once (personnel and equipment only with register facts)', () => {
+    const output = evaluateTechnique(fixture('wheel-bead-seat'));
+    const reported = new Set(output.results.map((result) => result.rule));
+    for (const rule of RULE_IDS.filter((id) => id !== 'personnel' && id !== 'equipment')) expect(reported.has(rule), rule).toBe(true);
+  });
+});
+
+describe('demo techniques', () => {
+  it('has five, each valid and with a note', () => {
+    expect(DEMO_TECHNIQUES).toHaveLength(5);
+    for (const technique of DEMO_TECHNIQUES) {
+      expect(parseTechnique(technique).success, technique.code).toBe(true);
+      expect(DEMO_TECHNIQUE_NOTES[technique.code], technique.code).toBeDefined();
+    }
+  });
+
+  it.each(DEMO_TECHNIQUES.map((technique) => [technique.code, technique] as const))('%s gives its noted verdict and failing rules', (code, technique) => {
+    const output = evaluateTechnique(technique);
+    const note = DEMO_TECHNIQUE_NOTES[code];
+    expect(output.verdict).toBe(note.expectedVerdict);
+    expect([...new Set(output.results.filter((result) => result.status === 'fail').map((result) => result.rule))]).toEqual(note.failingRules);
+  });
+
+  it('includes the three deliberate gaps: orientation, uncontrolled edge and a core flaw', () => {
+    const failing = Object.values(DEMO_TECHNIQUE_NOTES).flatMap((note) => note.failingRules);
+    expect(failing).toEqual(expect.arrayContaining(['orientation-coverage', 'edge-effect', 'center-effect']));
+  });
+});
