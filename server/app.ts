@@ -65,9 +65,15 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
     app.use(express.static(clientDir, { index: false }));
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(path.join(clientDir, 'index.html'));
+      // root: the dot-folder check of `send` then looks only below the client folder.
+      res.sendFile('index.html', { root: clientDir });
     });
   }
+  // Outside /api: a plain message, never a stack trace.
+  app.use(((error, _req, res, _next) => {
+    logger.error('Unhandled error outside the API', error);
+    res.status(500).type('text/plain').send('Something went wrong on the server.');
+  }) as express.ErrorRequestHandler);
 
   return Object.assign(app, {
     close() {

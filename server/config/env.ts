@@ -8,7 +8,7 @@ const booleanFromEnv = z
 const EnvSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().default('127.0.0.1'),
-  PORT: z.coerce.number().int().min(1).max(65535).default(5180),
+  PORT: z.coerce.number().int().min(0).max(65535).default(5180), // 0: any free port (tests)
   /** Public address used in e-mail links; defaults to http://HOST:PORT. */
   PUBLIC_URL: z.string().url().optional(),
   DATABASE_URL: z.string().regex(/^mariadb:\/\//, 'DATABASE_URL must start with mariadb://'),

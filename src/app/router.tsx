@@ -1,0 +1,37 @@
+// Routes, one file each under routes/, loaded lazily. The signed-in layout's
+// loader makes sure a session exists before any page inside it renders.
+import { createBrowserRouter, redirect } from 'react-router-dom';
+import { queryClient } from '../lib/query-client';
+import { getSessionQueryOptions } from '../features/auth/api/session';
+
+async function requireSession({ request }: { request: Request }) {
+  const session = await queryClient.ensureQueryData(getSessionQueryOptions());
+  if (!session) {
+    const url = new URL(request.url);
+    const next = url.pathname + url.search;
+    throw redirect(next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`);
+  }
+  return null;
+}
+
+export const router = createBrowserRouter([
+  { path: '/sign-in', lazy: () => import('./routes/sign-in') },
+  {
+    path: '/',
+    loader: requireSession,
+    lazy: () => import('./routes/signed-in-layout'),
+    children: [
+      { index: true, lazy: () => import('./routes/home') },
+      { path: 'dashboard', lazy: () => import('./routes/dashboard') },
+      { path: 'techniques', lazy: () => import('./routes/techniques') },
+      { path: 'audits', lazy: () => import('./routes/audits') },
+      { path: 'findings', lazy: () => import('./routes/findings') },
+      { path: 'actions', lazy: () => import('./routes/actions') },
+      { path: 'registers', lazy: () => import('./routes/registers') },
+      { path: 'trail', lazy: () => import('./routes/trail') },
+      { path: 'mailbox', lazy: () => import('./routes/mailbox') },
+      { path: 'admin/users', lazy: () => import('./routes/admin-users') },
+      { path: '*', lazy: () => import('./routes/not-found') },
+    ],
+  },
+]);

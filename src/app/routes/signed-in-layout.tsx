@@ -1,0 +1,101 @@
+import { useMemo, useState } from 'react';
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { AbilityProvider } from '@casl/react';
+import { useSession, useSignOut } from '../../features/auth/api/session';
+import { abilityFromPackedRules } from '../../lib/ability';
+import { Logo } from '../../components/ui/logo';
+import { Caution } from '../../components/ui/caution';
+import { Loading } from '../../components/ui/states';
+import { ROLE_LABELS } from '../../../shared/roles';
+import { NAV_ITEMS } from '../nav-items';
+
+function UserMenu({ name, roles, area }: { name: string; roles: string; area: string | null }) {
+  const [open, setOpen] = useState(false);
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <div className="relative">
+      <button
+        type="button"
+        className="flex items-center gap-2 rounded-md px-2 py-1 text-left text-sm text-white hover:bg-white/10"
+        aria-haspopup="menu"
+        aria-expanded={open}
+        onClick={() => setOpen((value) => !value)}
+      >
+        <span className="flex h-8 w-8 items-center justify-center rounded-full bg-copper font-bold text-white" aria-hidden="true">
+          {name
+            .split(' ')
+            .map((part) => part[0])
+            .join('')
+            .slice(0, 2)}
+        </span>
+        <span className="hidden sm:block">
+          <span className="block font-bold">{name}</span>
+          <span className="block text-xs text-white/70">{roles}</span>
+        </span>
+      </button>
+      {open && (
+        <div role="menu" className="absolute right-0 z-20 mt-2 w-60 rounded-lg border border-ink/10 bg-white p-2 text-sm text-ink shadow-lg">
+          <p className="px-2 py-1 text-xs text-ink-soft">{area ? `Area: ${area}` : 'No production area'}</p>
+          <button
+            type="button"
+            role="menuitem"
+            className="w-full rounded-md px-2 py-1.5 text-left font-bold hover:bg-paper"
+            onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
+          >
+            {signOut.isPending ? 'Signing out…' : 'Sign out'}
+          </button>
+        </div>
+      )}
+    </div>
+  );
+}
+
+export function Component() {
+  const session = useSession();
+  const ability = useMemo(() => abilityFromPackedRules(session.data?.rules ?? []), [session.data?.rules]);
+  if (!session.data) return <Loading what="Checking your session" />;
+  const { user } = session.data;
+  const items = NAV_ITEMS.filter((item) => !item.visible || item.visible(ability));
+
+  return (
+    <AbilityProvider value={ability}>
+      <div className="flex min-h-screen flex-col">
+        <header className="bg-ink">
+          <div className="mx-auto flex max-w-7xl items-center justify-between gap-4 px-4 py-2">
+            <NavLink to="/" className="flex items-center gap-2 text-lg font-bold text-white">
+              <Logo />
+              Whorl
+            </NavLink>
+            <UserMenu name={user.displayName} roles={user.roles.map((role) => ROLE_LABELS[role]).join(', ')} area={user.areaName} />
+          </div>
+          <nav aria-label="Sections" className="mx-auto max-w-7xl overflow-x-auto px-2">
+            <ul className="flex gap-1">
+              {items.map((item) => (
+                <li key={item.to}>
+                  <NavLink
+                    to={item.to}
+                    end={item.to === '/'}
+                    className={({ isActive }) =>
+                      `block whitespace-nowrap rounded-t-md px-3 py-2 text-sm font-bold ${isActive ? 'bg-paper text-ink' : 'text-white/80 hover:text-white'}`
+                    }
+                  >
+                    {item.label}
+                  </NavLink>
+                </li>
+              ))}
+            </ul>
+          </nav>
+        </header>
+        <main className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
+          <Outlet />
+        </main>
+        <footer className="border-t border-ink/10 bg-white">
+          <div className="mx-auto max-w-7xl px-4 py-3">
+            <Caution compact />
+          </div>
+        </footer>
+      </div>
+    </AbilityProvider>
+  );
+}
