@@ -106,13 +106,15 @@ export function pathsOf(value: unknown, prefix: (string | number)[] = []): (stri
 export const DELETE = Symbol('delete');
 export function replaceAt(value: unknown, path: (string | number)[], replacement: unknown): unknown {
   if (path.length === 0) return replacement === DELETE ? undefined : replacement;
-  const copy: Record<string | number, unknown> = Array.isArray(value) ? [...value] : { ...(value as object) };
   const [head, ...rest] = path;
-  if (rest.length === 0 && replacement === DELETE) {
-    if (Array.isArray(copy)) (copy as unknown[]).splice(head as number, 1);
-    else delete copy[head];
-  } else {
-    copy[head] = replaceAt(copy[head], rest, replacement);
+  if (Array.isArray(value)) {
+    const copy = [...value];
+    if (rest.length === 0 && replacement === DELETE) copy.splice(head as number, 1);
+    else copy[head as number] = replaceAt(copy[head as number], rest, replacement);
+    return copy;
   }
+  const copy: Record<string, unknown> = { ...(value as Record<string, unknown>) };
+  if (rest.length === 0 && replacement === DELETE) delete copy[head];
+  else copy[head] = replaceAt(copy[head], rest, replacement);
   return copy;
 }
