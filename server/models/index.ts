@@ -6,8 +6,13 @@ import { User, initUser } from './user';
 import { RoleAssignment, initRoleAssignment } from './role-assignment';
 import { TrailEntry, initTrailEntry, type TrailChanges } from './trail-entry';
 import { Session, initSession } from './session';
+import { Certification, initCertification } from './certification';
+import { Equipment, initEquipment } from './equipment';
+import { ReferenceNotch, initReferenceNotch } from './reference-notch';
+import { TechniqueEquipment, TechniquePerformer, initTechniqueLinks } from './technique-link';
 
 export { Area, User, RoleAssignment, TrailEntry, Session };
+export { Certification, Equipment, ReferenceNotch, TechniqueEquipment, TechniquePerformer };
 export type { TrailChanges };
 
 let initialisedFor: Sequelize | undefined;
@@ -21,10 +26,16 @@ export function initModels(sequelize: Sequelize): void {
   initRoleAssignment(sequelize);
   initTrailEntry(sequelize);
   initSession(sequelize);
+  initCertification(sequelize);
+  initEquipment(sequelize);
+  initReferenceNotch(sequelize);
+  initTechniqueLinks(sequelize);
 
   User.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
   Area.hasMany(User, { as: 'members', foreignKey: 'areaId' });
   Area.belongsTo(User, { as: 'lead', foreignKey: 'leadUserId', constraints: false });
   User.hasMany(RoleAssignment, { as: 'roleAssignments', foreignKey: 'userId' });
   RoleAssignment.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  Certification.belongsTo(User, { as: 'person', foreignKey: 'userId' });
+  Equipment.hasMany(ReferenceNotch, { as: 'notches', foreignKey: 'equipmentId' });
 }
