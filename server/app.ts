@@ -11,6 +11,7 @@ import { initModels } from './models';
 import { createHelmet, requireSameOrigin } from './middlewares/security';
 import { attachAbility, createSessionMiddleware, enforceSessionTimeouts } from './middlewares/session';
 import { denyUndeclared } from './middlewares/authorize';
+import { createLoadShedding } from './middlewares/load-shedding';
 import { apiNotFound, createErrorHandler } from './middlewares/error-handler';
 import { createPassport } from './auth/passport';
 import { healthRoutes } from './routes/health.routes';
@@ -29,6 +30,8 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy ? 1 : false);
+  // First: an overloaded process refuses extra work before spending anything on it.
+  app.use(createLoadShedding({ maxInFlight: config.maxInFlightRequests }));
   app.use(createHelmet(config.session.cookieSecure));
 
   const api = express.Router();

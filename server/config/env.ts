@@ -13,6 +13,8 @@ const EnvSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   DATABASE_URL: z.string().regex(/^mariadb:\/\//, 'DATABASE_URL must start with mariadb://'),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
+  /** Requests one process works on at once; past it, 503 with Retry-After (load shedding). */
+  MAX_IN_FLIGHT_REQUESTS: z.coerce.number().int().min(1).max(10_000).default(100),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(30),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(12),
@@ -47,6 +49,7 @@ export interface AppConfig {
   publicUrl: string;
   databaseUrl: string;
   databasePoolMax: number;
+  maxInFlightRequests: number;
   session: { secret: string; idleMinutes: number; absoluteHours: number; cookieSecure: boolean };
   trustProxy: boolean;
   signIn: { rateLimit: number; rateWindowMinutes: number; lockThreshold: number };
@@ -75,6 +78,7 @@ export function loadConfig(source: Record<string, string | undefined> = process.
     publicUrl: env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`,
     databaseUrl: env.DATABASE_URL,
     databasePoolMax: env.DATABASE_POOL_MAX,
+    maxInFlightRequests: env.MAX_IN_FLIGHT_REQUESTS,
     session: {
       secret: env.SESSION_SECRET,
       idleMinutes: env.SESSION_IDLE_MINUTES,
