@@ -32,6 +32,22 @@ export default defineConfig({
           hookTimeout: 60_000,
         },
       },
+      // Fault tests start their own MariaDB and app processes per file (several minutes):
+      // only `npm run test:faults` turns the project on, so `npm test` leaves it out.
+      ...(process.env.WHORL_FAULT_TESTS === '1'
+        ? [
+            {
+              test: {
+                name: 'faults',
+                include: ['tests/faults/**/*.test.ts'],
+                environment: 'node',
+                fileParallelism: false,
+                testTimeout: 180_000,
+                hookTimeout: 120_000,
+              },
+            },
+          ]
+        : []),
       {
         test: {
           name: 'e2e',
