@@ -4,7 +4,13 @@ import type { AppDeps } from '../app-deps';
 import { userRoutes } from './users.routes';
 import { areaRoutes } from './areas.routes';
 import { trailRoutes } from './trail.routes';
+import { evidenceRoutes } from './evidence.routes';
+import { certificationRoutes } from './certifications.routes';
+import { equipmentRoutes } from './equipment.routes';
+import { techniqueRoutes } from './techniques.routes';
+import { policyRoutes } from './policy.routes';
+import { materialRoutes } from './materials.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, certificationRoutes, equipmentRoutes, techniqueRoutes, policyRoutes, materialRoutes];
