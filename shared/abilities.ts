@@ -129,7 +129,7 @@ function adminRules({ can }: Builder) {
   can('update', 'Policy');
   can(['read', 'verify'], 'Trail');
   can('read', 'Mailbox');
-  can('update', 'Material');
+  can(['create', 'update'], 'Material');
 }
 
 /** Segregation of duties: these override every role above. */

@@ -10,9 +10,14 @@ import { Certification, initCertification } from './certification';
 import { Equipment, initEquipment } from './equipment';
 import { ReferenceNotch, initReferenceNotch } from './reference-notch';
 import { TechniqueEquipment, TechniquePerformer, initTechniqueLinks } from './technique-link';
+import { Material, initMaterial } from './material';
+import { Technique, initTechnique } from './technique';
+import { TechniqueRevision, initTechniqueRevision } from './technique-revision';
+import { PolicyHead, PolicySetting, initPolicySetting } from './policy-setting';
 
 export { Area, User, RoleAssignment, TrailEntry, Session };
 export { Certification, Equipment, ReferenceNotch, TechniqueEquipment, TechniquePerformer };
+export { Material, Technique, TechniqueRevision, PolicySetting, PolicyHead };
 export type { TrailChanges };
 
 let initialisedFor: Sequelize | undefined;
@@ -30,6 +35,10 @@ export function initModels(sequelize: Sequelize): void {
   initEquipment(sequelize);
   initReferenceNotch(sequelize);
   initTechniqueLinks(sequelize);
+  initMaterial(sequelize);
+  initTechnique(sequelize);
+  initTechniqueRevision(sequelize);
+  initPolicySetting(sequelize);
 
   User.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
   Area.hasMany(User, { as: 'members', foreignKey: 'areaId' });
@@ -38,4 +47,13 @@ export function initModels(sequelize: Sequelize): void {
   RoleAssignment.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Certification.belongsTo(User, { as: 'person', foreignKey: 'userId' });
   Equipment.hasMany(ReferenceNotch, { as: 'notches', foreignKey: 'equipmentId' });
+  Technique.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
+  Technique.hasMany(TechniqueRevision, { as: 'revisions', foreignKey: 'techniqueId' });
+  Technique.hasOne(TechniqueRevision, { as: 'latestRevision', foreignKey: 'techniqueId' });
+  TechniqueRevision.belongsTo(Technique, { as: 'technique', foreignKey: 'techniqueId' });
+  TechniqueRevision.belongsTo(User, { as: 'approvedBy', foreignKey: 'approvedById' });
+  TechniqueRevision.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  TechniqueRevision.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
+  PolicySetting.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
+  PolicyHead.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
 }

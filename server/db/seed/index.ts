@@ -3,9 +3,10 @@
 import type { Sequelize } from 'sequelize';
 import { initModels, User } from '../../models';
 import { seedPeople } from './people.seed';
+import { seedTechniques } from './techniques.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 
-export const seedSteps: SeedStep[] = [seedPeople];
+export const seedSteps: SeedStep[] = [seedPeople, seedTechniques];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);
