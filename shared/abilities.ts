@@ -112,7 +112,8 @@ function accountableManagerRules({ can }: Builder) {
 
 function actionOwnerRules({ can }: Builder, user: AbilityUser) {
   can(OWNER_ACTION_EVENTS, 'CorrectiveAction', { ownerId: user.id });
-  can('create', 'Evidence');
+  // Evidence subjects carry the owning record's type and its owner (recordOwnerId).
+  can('create', 'Evidence', { recordType: 'action', recordOwnerId: user.id });
 }
 
 function level3Rules(builder: Builder, user: AbilityUser) {
@@ -120,6 +121,7 @@ function level3Rules(builder: Builder, user: AbilityUser) {
   can('create', 'Technique');
   can('update', 'Technique', { state: 'draft' });
   can('approve', 'Technique', { state: 'draft' });
+  can('create', 'Evidence', { recordType: 'technique' });
   actionOwnerRules(builder, user);
 }
 
@@ -141,6 +143,18 @@ function segregationRules({ cannot }: Builder, user: AbilityUser) {
   // A supersede by the uploader is always allowed (granted below); a quality manager may supersede others'.
 }
 
+/**
+ * Evidence files are need-to-know: an account that only administers the system
+ * does not open them, and certificates and vision-exam records are seen by the
+ * person they belong to and by quality staff (auditor, quality and accountable manager).
+ */
+function evidenceReadRules({ can, cannot }: Builder, user: AbilityUser) {
+  if (user.roles.every((role) => role === 'admin')) cannot('read', 'Evidence');
+  const qualityStaff = user.roles.some((role) => role === 'auditor' || role === 'quality_manager' || role === 'accountable_manager');
+  if (!qualityStaff) cannot('read', 'Evidence', { recordType: 'certification', recordOwnerId: { $ne: user.id } });
+  can('create', 'Evidence', { recordType: 'certification', recordOwnerId: user.id });
+}
+
 export function defineAbilityFor(user: AbilityUser): AppAbility {
   const builder = new AbilityBuilder<AppAbility>(createMongoAbility);
   builder.can('read', READABLE);
@@ -156,5 +170,6 @@ export function defineAbilityFor(user: AbilityUser): AppAbility {
   };
   for (const role of user.roles) roleRules[role](builder, user);
   segregationRules(builder, user);
+  evidenceReadRules(builder, user);
   return builder.build();
 }

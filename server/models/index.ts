@@ -14,11 +14,15 @@ import { Material, initMaterial } from './material';
 import { Technique, initTechnique } from './technique';
 import { TechniqueRevision, initTechniqueRevision } from './technique-revision';
 import { PolicyHead, PolicySetting, initPolicySetting } from './policy-setting';
+import { EvidenceFile, initEvidenceFile } from './evidence-file';
+import { OutboxMessage, initOutboxMessage, type OutboxStatus } from './outbox-message';
+import { CaughtMail, initCaughtMail } from './caught-mail';
 
 export { Area, User, RoleAssignment, TrailEntry, Session };
 export { Certification, Equipment, ReferenceNotch, TechniqueEquipment, TechniquePerformer };
 export { Material, Technique, TechniqueRevision, PolicySetting, PolicyHead };
-export type { TrailChanges };
+export { EvidenceFile, OutboxMessage, CaughtMail };
+export type { TrailChanges, OutboxStatus };
 
 let initialisedFor: Sequelize | undefined;
 
@@ -39,6 +43,9 @@ export function initModels(sequelize: Sequelize): void {
   initTechnique(sequelize);
   initTechniqueRevision(sequelize);
   initPolicySetting(sequelize);
+  initEvidenceFile(sequelize);
+  initOutboxMessage(sequelize);
+  initCaughtMail(sequelize);
 
   User.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
   Area.hasMany(User, { as: 'members', foreignKey: 'areaId' });
@@ -56,4 +63,6 @@ export function initModels(sequelize: Sequelize): void {
   TechniqueRevision.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
   PolicySetting.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
   PolicyHead.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
+  EvidenceFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
+  EvidenceFile.belongsTo(User, { as: 'supersededBy', foreignKey: 'supersededById' });
 }
