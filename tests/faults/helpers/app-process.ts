@@ -33,14 +33,16 @@ export interface StartAppOptions {
   label: string;
   env?: Record<string, string>;
   port?: number;
+  /** Extra node flags, e.g. ['--cpu-prof', '--cpu-prof-dir=…'] for a profile. */
+  nodeArgs?: string[];
 }
 
-export async function startAppProcess({ databaseUrl, label, env = {}, port }: StartAppOptions): Promise<AppProcess> {
+export async function startAppProcess({ databaseUrl, label, env = {}, port, nodeArgs = [] }: StartAppOptions): Promise<AppProcess> {
   mkdirSync(FAULT_LOG_DIR, { recursive: true });
   const listenPort = port ?? (await findFreePort());
   const logFile = path.join(FAULT_LOG_DIR, `${label}-${listenPort}.log`);
   const fd = openSync(logFile, 'a');
-  const child = spawn(process.execPath, ['--import', 'tsx', ENTRY], {
+  const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', ENTRY], {
     cwd: ROOT,
     stdio: ['ignore', fd, fd],
     env: {
