@@ -22,6 +22,10 @@ export function createS3Storage(options: S3StorageOptions): EvidenceStorage {
     endpoint: options.endpoint,
     // Path-style addressing works with every S3-compatible server (bucket in the path, not the host name).
     forcePathStyle: Boolean(options.endpoint),
+    // Checksums only where S3 requires them: the SDK's default streams bodies as
+    // aws-chunked with trailing checksums, which not every S3-compatible server decodes.
+    requestChecksumCalculation: 'WHEN_REQUIRED',
+    responseChecksumValidation: 'WHEN_REQUIRED',
     credentials:
       options.accessKeyId && options.secretAccessKey
         ? { accessKeyId: options.accessKeyId, secretAccessKey: options.secretAccessKey }
