@@ -1,5 +1,49 @@
-import { SectionPending } from '../../components/ui/section-pending';
+import { NavLink, Navigate, useParams } from 'react-router-dom';
+import { PageHeader } from '../../components/ui/states';
+import { CertificationsTable } from '../../features/registers/components/certifications-table';
+import { EquipmentTable } from '../../features/registers/components/equipment-table';
+
+const TABS = [
+  { id: 'certifications', label: 'Personnel certifications' },
+  { id: 'equipment', label: 'Equipment' },
+] as const;
 
 export function Component() {
-  return <SectionPending title="Registers" purpose="Personnel certifications, equipment calibration and materials." />;
+  const { tab } = useParams();
+  if (!tab) return <Navigate to="/registers/certifications" replace />;
+  if (!TABS.some((t) => t.id === tab)) return <Navigate to="/registers/certifications" replace />;
+  return (
+    <div>
+      <PageHeader title="Registers" />
+      <nav aria-label="Registers" className="mb-4 flex gap-1 border-b border-ink/10">
+        {TABS.map((t) => (
+          <NavLink
+            key={t.id}
+            to={`/registers/${t.id}`}
+            className={({ isActive }) =>
+              `-mb-px rounded-t-md border px-3 py-1.5 text-sm font-bold ${isActive ? 'border-ink/10 border-b-paper bg-paper text-ink' : 'border-transparent text-ink-soft hover:text-ink'}`
+            }
+          >
+            {t.label}
+          </NavLink>
+        ))}
+      </nav>
+      {tab === 'certifications' ? (
+        <>
+          <p className="mb-3 max-w-3xl text-sm text-ink-soft">
+            A person performing ET needs a valid ET Level 2 or 3 certificate and a near-vision exam within the policy period; a technique needs a
+            certified ET Level 3's approval. The technique checklist reads this register.
+          </p>
+          <CertificationsTable />
+        </>
+      ) : (
+        <>
+          <p className="mb-3 max-w-3xl text-sm text-ink-soft">
+            Instruments, probes and reference standards must be within calibration when used. Quarantined and retired items are kept with their history.
+          </p>
+          <EquipmentTable />
+        </>
+      )}
+    </div>
+  );
 }
