@@ -13,6 +13,7 @@ import { insideDiameterMm, type Coil, type Part, type Technique } from '../../sc
 import type { Policy } from '../policy';
 import type { RegisterFacts } from './registers';
 import type { ChecklistValues, RuleContext } from './types';
+import { coilName } from './format';
 
 /** Coils that go round the part or inside it: fill factor and limit frequency apply. */
 export function isEncirclingOrInternal(coil: Coil): boolean {
@@ -92,5 +93,6 @@ export function buildContext(technique: Technique, policy: Policy, registers: Re
     fillFactor,
     orientationSensitivity: sensitivity,
   };
-  return { technique, policy, registers, now, values, flawNormals };
+  const coilNames = coils.map(coilName);
+  return { technique, policy, registers, now, values, flawNormals, coilNames };
 }

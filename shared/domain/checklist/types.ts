@@ -92,6 +92,8 @@ export interface RuleContext {
   now: Date;
   values: ChecklistValues;
   flawNormals: Vec3[];
+  /** "coil 1 (5 mm shielded surface)" for each coil, formatted once per evaluation. */
+  coilNames: string[];
 }
 
 export type Rule = (context: RuleContext, results: RuleResult[]) => void;

@@ -1,7 +1,7 @@
 // Rule 2 (first part): in an encircling coil on a solid bar the current density
 // falls to zero at the axis whatever the frequency, so a flaw at the centre
 // (or deeper than the radius) cannot be found by that coil.
-import { coilName, list, mm } from '../format';
+import { list, mm } from '../format';
 import type { Flaw, Technique } from '../../../schemas/technique';
 import type { Rule } from '../types';
 
@@ -14,7 +14,7 @@ export function isAtBarCenter(flaw: Flaw, technique: Technique): boolean {
   return flaw.location === 'center' || flaw.depthMm >= part.diameterMm / 2;
 }
 
-export const centerEffect: Rule = ({ technique }, results) => {
+export const centerEffect: Rule = ({ technique, coilNames }, results) => {
   const { part, coils } = technique;
   const encircling = coils.flatMap((coil, c) => (coil.type === 'encircling' ? [c] : []));
   if (part.form !== 'bar' || encircling.length === 0) {
@@ -29,7 +29,7 @@ export const centerEffect: Rule = ({ technique }, results) => {
   }
   const radiusMm = (part.diameterMm ?? 0) / 2;
   const others = coils.flatMap((coil, c) => (coil.type === 'encircling' ? [] : [c]));
-  const names = list(encircling.map((c) => coilName(coils[c], c)));
+  const names = list(encircling.map((c) => coilNames[c]));
   let any = false;
 
   technique.flaws.forEach((flaw) => {
@@ -58,7 +58,7 @@ export const centerEffect: Rule = ({ technique }, results) => {
         coil: encircling[0],
         message:
           `Flaw "${flaw.id}" lies ${where}, where ${names} induces no current at any frequency; ` +
-          `finding it rests on ${list(others.map((c) => coilName(coils[c], c)))} (see penetration-depth). Lowering the encircling coil's frequency will not help.`,
+          `finding it rests on ${list(others.map((c) => coilNames[c]))} (see penetration-depth). Lowering the encircling coil's frequency will not help.`,
         values,
         basis: BASIS,
       });

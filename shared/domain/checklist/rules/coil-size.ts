@@ -1,13 +1,13 @@
 // Rule 2 (short cracks): a crack much shorter than the coil disturbs little of its
 // field. Cracks shorter than about half the coil diameter are hard to detect: warn.
-import { coilName, floorSig, mm, sig } from '../format';
+import { floorSig, mm, sig } from '../format';
 import { isScanningCoil } from '../context';
 import type { Rule } from '../types';
 
 const BASIS =
   '[pub] a published military eddy current manual: cracks shorter than about half the coil diameter are hard to detect (policy shortCrackFraction, default 0.5)';
 
-export const coilSize: Rule = ({ technique, policy, values }, results) => {
+export const coilSize: Rule = ({ technique, policy, values, coilNames }, results) => {
   const { coils, flaws } = technique;
   const scanning = coils.flatMap((coil, c) => (isScanningCoil(coil) ? [c] : []));
   if (scanning.length === 0) {
@@ -38,7 +38,7 @@ export const coilSize: Rule = ({ technique, policy, values }, results) => {
         status: 'pass',
         flaw: flaw.id,
         coil: smallest,
-        message: `Flaw "${flaw.id}" (${mm(flaw.lengthMm)} long) is at least ${sig(fraction)} × the diameter of ${coilName(coil, smallest)} = ${mm(shortestMm)}.`,
+        message: `Flaw "${flaw.id}" (${mm(flaw.lengthMm)} long) is at least ${sig(fraction)} × the diameter of ${coilNames[smallest]} = ${mm(shortestMm)}.`,
         values: resultValues,
         basis: BASIS,
       });
@@ -49,7 +49,7 @@ export const coilSize: Rule = ({ technique, policy, values }, results) => {
         flaw: flaw.id,
         coil: smallest,
         message:
-          `Flaw "${flaw.id}" is ${mm(flaw.lengthMm)} long, shorter than ${sig(fraction)} × the diameter of ${coilName(coil, smallest)} = ${mm(shortestMm)}: ` +
+          `Flaw "${flaw.id}" is ${mm(flaw.lengthMm)} long, shorter than ${sig(fraction)} × the diameter of ${coilNames[smallest]} = ${mm(shortestMm)}: ` +
           `it disturbs little of the coil's field and is hard to detect. Consider a coil of at most ${mm(floorSig(flaw.lengthMm / fraction))} diameter, or show detection on a notch of this length.`,
         values: resultValues,
         basis: BASIS,

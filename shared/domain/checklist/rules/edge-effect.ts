@@ -1,13 +1,13 @@
 // Rule 4: near an edge the edge signal swamps flaw signals unless the coil-to-edge
 // distance is held constant (a guide or fixture) and calibrated on a reference
 // notch at that same edge distance.
-import { coilName, mm, sig } from '../format';
+import { mm, sig } from '../format';
 import type { Rule } from '../types';
 
 const BASIS =
   '[mem] edge zone of policy edgeZoneUnshieldedDiameters (default 2) coil diameters unshielded, edgeZoneShieldedDiameters (default 0.5) shielded; guide and edge notch required inside it';
 
-export const edgeEffect: Rule = ({ technique, policy }, results) => {
+export const edgeEffect: Rule = ({ technique, policy, coilNames }, results) => {
   const { coils, scan, reference } = technique;
   const edgeMm = scan.minEdgeDistanceMm;
   const surfaceCoils = coils.flatMap((coil, c) => (coil.type === 'encircling' || coil.type === 'bobbin' ? [] : [c]));
@@ -44,7 +44,7 @@ export const edgeEffect: Rule = ({ technique, policy }, results) => {
         rule: 'edge-effect',
         status: 'pass',
         coil: c,
-        message: `The scan comes no closer than ${mm(edgeMm)} to an edge, outside the ${mm(zoneMm)} edge zone (${sig(factor)} × diameter) of ${coilName(coil, c)}.`,
+        message: `The scan comes no closer than ${mm(edgeMm)} to an edge, outside the ${mm(zoneMm)} edge zone (${sig(factor)} × diameter) of ${coilNames[c]}.`,
         values,
         basis: BASIS,
       });
@@ -56,7 +56,7 @@ export const edgeEffect: Rule = ({ technique, policy }, results) => {
         status: 'pass',
         coil: c,
         message:
-          `The scan comes within ${mm(edgeMm)} of an edge, inside the ${mm(zoneMm)} edge zone of ${coilName(coil, c)}, ` +
+          `The scan comes within ${mm(edgeMm)} of an edge, inside the ${mm(zoneMm)} edge zone of ${coilNames[c]}, ` +
           `but a guide holds the coil-to-edge distance and a reference notch sits ${mm(edgeNotch.edgeDistanceMm ?? edgeMm)} from an edge, so the edge signal is constant and calibrated.`,
         values,
         basis: BASIS,
@@ -77,7 +77,7 @@ export const edgeEffect: Rule = ({ technique, policy }, results) => {
       status: 'fail',
       coil: c,
       message:
-        `The scan comes within ${mm(edgeMm)} of an edge, inside the ${mm(zoneMm)} edge zone (${sig(factor)} × diameter) of ${coilName(coil, c)}, ` +
+        `The scan comes within ${mm(edgeMm)} of an edge, inside the ${mm(zoneMm)} edge zone (${sig(factor)} × diameter) of ${coilNames[c]}, ` +
         `where the edge signal swamps flaw signals unless the coil-to-edge distance is held constant. Missing: ${missing.join('; ')}. ` +
         `To fix: ${fixes.join(', ')}.`,
       values,

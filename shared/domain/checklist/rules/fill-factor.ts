@@ -1,13 +1,13 @@
 // Rule 5 (first part): the fill factor of encircling and internal coils. A loose
 // coil couples less of its field into the part and loses sensitivity.
-import { ceilSig, coilName, floorSig, mm, sig } from '../format';
+import { ceilSig, floorSig, mm, sig } from '../format';
 import { insideDiameterMm } from '../../../schemas/technique';
 import type { Rule } from '../types';
 
 const BASIS =
   '[pub] fill factor η = (d_part/D_coil)² encircling, (D_coil/ID)² internal; [trade] minimum policy fillFactorMinEncircling (default 0.7) / fillFactorMinInternal (default 0.8)';
 
-export const fillFactor: Rule = ({ technique, policy, values }, results) => {
+export const fillFactor: Rule = ({ technique, policy, values, coilNames }, results) => {
   const { coils, part } = technique;
   let any = false;
   coils.forEach((coil, c) => {
@@ -22,7 +22,7 @@ export const fillFactor: Rule = ({ technique, policy, values }, results) => {
         rule: 'fill-factor',
         status: 'pass',
         coil: c,
-        message: `Fill factor of ${coilName(coil, c)} is ${sig(eta)} (minimum ${sig(minimum)} for ${internal ? 'an internal' : 'an encircling'} coil).`,
+        message: `Fill factor of ${coilNames[c]} is ${sig(eta)} (minimum ${sig(minimum)} for ${internal ? 'an internal' : 'an encircling'} coil).`,
         values: resultValues,
         basis: BASIS,
       });
@@ -36,7 +36,7 @@ export const fillFactor: Rule = ({ technique, policy, values }, results) => {
       status: 'fail',
       coil: c,
       message:
-        `Fill factor of ${coilName(coil, c)} is ${sig(eta)}, below the minimum ${sig(minimum)}: a loose coil couples less of its field into the part, ` +
+        `Fill factor of ${coilNames[c]} is ${sig(eta)}, below the minimum ${sig(minimum)}: a loose coil couples less of its field into the part, ` +
         `so flaw signals shrink against noise from wobble. To fix: ${fix}.`,
       values: resultValues,
       basis: BASIS,

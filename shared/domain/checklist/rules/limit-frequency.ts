@@ -1,12 +1,12 @@
 // Rule 5 (second part): the test frequency against the limit (characteristic)
 // frequency f_g of a bar or tube, for encircling and internal coils.
-import { coilName, hz, sig } from '../format';
+import { hz, sig } from '../format';
 import type { Rule } from '../types';
 
 const BASIS =
   '[pub] solid cylinder f_g = 2/(π μ0 μr σ d²) = 5066/(σ[MS/m]·μr·d[cm]²) (after Förster); [mem] thin-walled tube f_g = 5066/(σ·μr·d_i·w); [mem] crack-detection window f/f_g ≈ 5–15 (policy limitFrequencyRatioMin/Max)';
 
-export const limitFrequency: Rule = ({ technique, policy, values }, results) => {
+export const limitFrequency: Rule = ({ technique, policy, values, coilNames }, results) => {
   const { coils, part } = technique;
   const fg = values.limitFrequencyHz;
   const low = policy.limitFrequencyRatioMin;
@@ -20,7 +20,7 @@ export const limitFrequency: Rule = ({ technique, policy, values }, results) => 
         rule: 'limit-frequency',
         status: 'not_applicable',
         coil: c,
-        message: `${coilName(coil, c)} works in a bore of a larger part: the limit frequency of a bar or tube does not apply.`,
+        message: `${coilNames[c]} works in a bore of a larger part: the limit frequency of a bar or tube does not apply.`,
         values: {},
         basis: BASIS,
       });
@@ -42,7 +42,7 @@ export const limitFrequency: Rule = ({ technique, policy, values }, results) => 
         rule: 'limit-frequency',
         status: 'pass',
         coil: c,
-        message: `Limit frequency of the ${shape} f_g = ${hz(fg)}; ${coilName(coil, c)} tests at ${listed}, within the crack-detection window f/f_g = ${sig(low)}–${sig(high)} (${window}).`,
+        message: `Limit frequency of the ${shape} f_g = ${hz(fg)}; ${coilNames[c]} tests at ${listed}, within the crack-detection window f/f_g = ${sig(low)}–${sig(high)} (${window}).`,
         values: resultValues,
         basis: BASIS,
       });
@@ -52,7 +52,7 @@ export const limitFrequency: Rule = ({ technique, policy, values }, results) => 
         status: 'warn',
         coil: c,
         message:
-          `Limit frequency of the ${shape} f_g = ${hz(fg)}; ${coilName(coil, c)} tests at ${listed}, outside the crack-detection window f/f_g = ${sig(low)}–${sig(high)}, ` +
+          `Limit frequency of the ${shape} f_g = ${hz(fg)}; ${coilNames[c]} tests at ${listed}, outside the crack-detection window f/f_g = ${sig(low)}–${sig(high)}, ` +
           `where flaw and dimensional signals separate best. Consider a frequency from ${window}, or record why this one was chosen.`,
         values: resultValues,
         basis: BASIS,

@@ -1,14 +1,14 @@
 // Rule 1: a flaw is found when the induced current crosses it. Every flaw must be
 // crossed by the current of at least one coil, at or above the policy's sensitivity.
 import { COIL_CURRENT_WORDS } from '../../orientation';
-import { coilName, sig } from '../format';
+import { sig } from '../format';
 import type { Rule } from '../types';
 
 const BASIS =
   '[pub] eddy currents find a flaw they cross and miss one lying along the current or parallel to the surface; sensitivity threshold: policy orientationSensitivityMin (Whorl product default 0.5)';
 const EPSILON = 1e-9;
 
-export const orientationCoverage: Rule = ({ technique, policy, values }, results) => {
+export const orientationCoverage: Rule = ({ technique, policy, values, coilNames }, results) => {
   const threshold = policy.orientationSensitivityMin;
   technique.flaws.forEach((flaw, flawIndex) => {
     const sensitivities = values.orientationSensitivity[flawIndex];
@@ -39,14 +39,14 @@ export const orientationCoverage: Rule = ({ technique, policy, values }, results
         status: 'pass',
         flaw: flaw.id,
         coil: bestCoil,
-        message: `Flaw "${flaw.id}" (${described}) is crossed by the current of ${coilName(coil, bestCoil)}, which flows ${COIL_CURRENT_WORDS[coil.type]}: sensitivity ${sig(best, 2)} ≥ ${sig(threshold, 2)}.`,
+        message: `Flaw "${flaw.id}" (${described}) is crossed by the current of ${coilNames[bestCoil]}, which flows ${COIL_CURRENT_WORDS[coil.type]}: sensitivity ${sig(best, 2)} ≥ ${sig(threshold, 2)}.`,
         values: resultValues,
         basis: BASIS,
       });
       return;
     }
 
-    const coilWords = technique.coils.map((coil, c) => `${coilName(coil, c)} flows ${COIL_CURRENT_WORDS[coil.type]}`);
+    const coilWords = technique.coils.map((coil, c) => `${coilNames[c]} flows ${COIL_CURRENT_WORDS[coil.type]}`);
     results.push({
       rule: 'orientation-coverage',
       status: 'fail',

@@ -1,7 +1,7 @@
 // Rule 3: a flaw below the surface is found only if the field reaches it:
 // x ≤ k·δ at some test frequency, counting only metal above the flaw.
 import { currentDensityRatio, frequencyForDepthMm, phaseLagDeg, PHASE_SEPARATION_DEPTH_FACTOR } from '../../physics';
-import { coilName, floorSig, hz, list, mm, percent, sig } from '../format';
+import { floorSig, hz, list, mm, percent, sig } from '../format';
 import { isAtBarCenter } from './center-effect';
 import type { Flaw } from '../../../schemas/technique';
 import type { Rule, RuleContext } from '../types';
@@ -20,13 +20,19 @@ function candidateCoils(context: RuleContext, flawIndex: number): number[] {
   const { technique, policy, values } = context;
   const flaw = technique.flaws[flawIndex];
   const atCenter = isAtBarCenter(flaw, technique);
-  const usable = technique.coils.flatMap((coil, c) => (atCenter && coil.type === 'encircling' ? [] : [c]));
-  const crossing = usable.filter((c) => values.orientationSensitivity[flawIndex][c] + EPSILON >= policy.orientationSensitivityMin);
+  const sensitivity = values.orientationSensitivity[flawIndex];
+  const usable: number[] = [];
+  const crossing: number[] = [];
+  for (let c = 0; c < technique.coils.length; c++) {
+    if (atCenter && technique.coils[c].type === 'encircling') continue;
+    usable.push(c);
+    if (sensitivity[c] + EPSILON >= policy.orientationSensitivityMin) crossing.push(c);
+  }
   return crossing.length > 0 ? crossing : usable;
 }
 
 export const penetrationDepth: Rule = (context, results) => {
-  const { technique, policy, values } = context;
+  const { technique, policy, values, coilNames } = context;
   const { material, coils } = technique;
   const k = policy.penetrationDepthFactor;
   let any = false;
@@ -82,7 +88,7 @@ export const penetrationDepth: Rule = (context, results) => {
       phaseSeparationFrequencyHz,
     };
     const phaseAdvice = `For about 90° between flaw and lift-off signals, δ ≈ 1.25 × ${mm(xMm)} gives ${hz(phaseSeparationFrequencyHz)}.`;
-    const coilsWord = candidates.length === 1 ? coilName(coils[bestCoil], bestCoil) : list(candidates.map((c) => coilName(coils[c], c)));
+    const coilsWord = candidates.length === 1 ? coilNames[bestCoil] : list(candidates.map((c) => coilNames[c]));
 
     if (xMm <= reachMm * (1 + EPSILON)) {
       results.push({
@@ -91,7 +97,7 @@ export const penetrationDepth: Rule = (context, results) => {
         flaw: flaw.id,
         coil: bestCoil,
         message:
-          `Flaw "${flaw.id}" lies ${depthWords}; at ${hz(frequencyHz)} with ${coilName(coils[bestCoil], bestCoil)}, δ = ${mm(deltaMm)} and ${sig(k)}δ = ${mm(reachMm)}, so the field reaches it ` +
+          `Flaw "${flaw.id}" lies ${depthWords}; at ${hz(frequencyHz)} with ${coilNames[bestCoil]}, δ = ${mm(deltaMm)} and ${sig(k)}δ = ${mm(reachMm)}, so the field reaches it ` +
           `(current density there ${percent(densityRatio)} of the surface value, phase lag ${sig(resultValues.phaseLagDeg)}°). ${phaseAdvice}`,
         values: resultValues,
         basis: BASIS,
@@ -113,7 +119,7 @@ export const penetrationDepth: Rule = (context, results) => {
   });
 
   if (!any) {
-    const depths = coils.map((coil, c) => `${coilName(coil, c)}: ${coil.frequenciesHz.map((f, i) => `${hz(f)} δ = ${mm(values.standardDepthMm[c][i])}`).join(', ')}`);
+    const depths = coils.map((coil, c) => `${coilNames[c]}: ${coil.frequenciesHz.map((f, i) => `${hz(f)} δ = ${mm(values.standardDepthMm[c][i])}`).join(', ')}`);
     results.push({
       rule: 'penetration-depth',
       status: 'not_applicable',

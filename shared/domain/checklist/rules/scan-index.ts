@@ -1,12 +1,12 @@
 // Rule 2 (second part): a surface coil has no current directly under its centre,
 // so the step between passes must let every point pass under the winding.
-import { coilName, mm, sig } from '../format';
+import { mm, sig } from '../format';
 import { isScanningCoil } from '../context';
 import type { Rule } from '../types';
 
 const BASIS = '[trade] scan index ≤ policy scanIndexFractionMax × coil diameter (default 0.5), common practice, no single source';
 
-export const scanIndex: Rule = ({ technique, policy }, results) => {
+export const scanIndex: Rule = ({ technique, policy, coilNames }, results) => {
   const { coils, scan } = technique;
   const fraction = policy.scanIndexFractionMax;
   let any = false;
@@ -21,7 +21,7 @@ export const scanIndex: Rule = ({ technique, policy }, results) => {
         status: 'fail',
         coil: c,
         message:
-          `The technique states no scan index for ${coilName(coil, c)}. A surface coil has no current under its centre, ` +
+          `The technique states no scan index for ${coilNames[c]}. A surface coil has no current under its centre, ` +
           `so coverage depends on the step between passes: state an index of at most ${mm(maxIndexMm)} (${sig(fraction)} × coil diameter).`,
         values,
         basis: BASIS,
@@ -31,7 +31,7 @@ export const scanIndex: Rule = ({ technique, policy }, results) => {
         rule: 'scan-index',
         status: 'pass',
         coil: c,
-        message: `Scan index ${mm(scan.indexMm)} is no more than ${sig(fraction)} × the diameter of ${coilName(coil, c)} = ${mm(maxIndexMm)}: every point passes under the winding.`,
+        message: `Scan index ${mm(scan.indexMm)} is no more than ${sig(fraction)} × the diameter of ${coilNames[c]} = ${mm(maxIndexMm)}: every point passes under the winding.`,
         values,
         basis: BASIS,
       });
@@ -41,7 +41,7 @@ export const scanIndex: Rule = ({ technique, policy }, results) => {
         status: 'fail',
         coil: c,
         message:
-          `Scan index ${mm(scan.indexMm)} exceeds ${sig(fraction)} × the diameter of ${coilName(coil, c)} = ${mm(maxIndexMm)}. ` +
+          `Scan index ${mm(scan.indexMm)} exceeds ${sig(fraction)} × the diameter of ${coilNames[c]} = ${mm(maxIndexMm)}. ` +
           'A surface coil has no current directly under its centre, so strips between passes can go unscanned. ' +
           `Reduce the index to at most ${mm(maxIndexMm)}.`,
         values,
