@@ -7,10 +7,11 @@ import { trailRoutes } from './trail.routes';
 import { evidenceRoutes } from './evidence.routes';
 import { certificationRoutes } from './certifications.routes';
 import { equipmentRoutes } from './equipment.routes';
+import { dashboardRoutes } from './dashboard.routes';
 import { techniqueRoutes } from './techniques.routes';
 import { policyRoutes } from './policy.routes';
 import { materialRoutes } from './materials.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, certificationRoutes, equipmentRoutes, techniqueRoutes, policyRoutes, materialRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, techniqueRoutes, policyRoutes, materialRoutes];
