@@ -76,7 +76,7 @@ describe(`when ${CONNECTIONS} connections hit the server for ${DURATION_SECONDS}
       }
     }
 
-    const statusCounts = Object.fromEntries(Object.entries(result.statusCodeStats).map(([code, stats]) => [code, stats.count]));
+    const statusCounts = Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([code, stats]) => [code, stats.count ?? 0]));
     console.log(
       `overload: ${result.requests.total} requests, ${Math.round(result.requests.average)} req/s, statuses ${JSON.stringify(statusCounts)}, ` +
         `errors ${result.errors}, timeouts ${result.timeouts}, latency p50 ${result.latency.p50} ms p99 ${result.latency.p99} ms max ${result.latency.max} ms, ` +
