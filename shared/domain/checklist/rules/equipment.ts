@@ -23,7 +23,7 @@ export const equipment: Rule = ({ registers, now }, results) => {
     }
   }
   for (const item of items) {
-    const name = `${KIND_WORDS[item.kind]} ${item.description}${item.serialNumber ? ` (s/n ${item.serialNumber})` : ''}`;
+    const name = `${KIND_WORDS[item.kind]} "${item.description}"${item.serialNumber ? ` (s/n ${item.serialNumber})` : ''}`;
     const due = item.calibrationDueOn;
     const values = { kind: item.kind, description: item.description, calibrationDueOn: due ? isoDay(due) : null };
     if (!due) {

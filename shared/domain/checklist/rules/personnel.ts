@@ -28,17 +28,17 @@ function checkCertificates(person: PersonFact, minLevel: number, onDay: number, 
   }
   const problems: string[] = [];
   for (const certification of atLevel) {
-    const label = `ET Level ${certification.level}${certification.certificateNumber ? ` certificate ${certification.certificateNumber}` : ' certificate'}`;
+    const label = `an ET Level ${certification.level} certificate${certification.certificateNumber ? ` (no. ${certification.certificateNumber})` : ''}`;
     if (utcDay(certification.expiresOn) < onDay) {
-      problems.push(`${label} expired on ${isoDay(certification.expiresOn)}`);
+      problems.push(`holds ${label} that expired on ${isoDay(certification.expiresOn)}`);
       continue;
     }
     if (certification.issuedOn && utcDayPlusMonths(certification.issuedOn, validityYears * 12) < utcDay(certification.expiresOn)) {
-      problems.push(`${label} runs from ${isoDay(certification.issuedOn)} to ${isoDay(certification.expiresOn)}, longer than the ${validityYears}-year maximum validity`);
+      problems.push(`holds ${label} running from ${isoDay(certification.issuedOn)} to ${isoDay(certification.expiresOn)}, longer than the ${validityYears}-year maximum validity`);
       continue;
     }
     if (certification.issuedOn && utcDay(certification.issuedOn) > onDay) {
-      problems.push(`${label} was not yet issued (issued ${isoDay(certification.issuedOn)})`);
+      problems.push(`holds ${label} not issued until ${isoDay(certification.issuedOn)}`);
       continue;
     }
     return { valid: certification, problems: [] };
@@ -52,7 +52,7 @@ export const personnel: Rule = ({ registers, policy, now }, results) => {
   const validityYears = policy.certificateValidityYears;
 
   const approvalDay = registers.approvedOn ? utcDay(registers.approvedOn) : today;
-  const approvalWhen = registers.approvedOn ? `on the approval date ${isoDay(registers.approvedOn)}` : 'today';
+  const approvalWhen = registers.approvedOn ? `on the approval date, ${isoDay(registers.approvedOn)}` : 'today';
   const approver = registers.approver;
   if (!approver) {
     results.push({
@@ -69,7 +69,7 @@ export const personnel: Rule = ({ registers, policy, now }, results) => {
       status: check.valid ? 'pass' : 'fail',
       message: check.valid
         ? `Approved by ${approver.name}, ET Level 3, certificate valid ${approvalWhen} (expires ${isoDay(check.valid.expiresOn)}).`
-        : `The approver, ${approver.name}, ${list(check.problems)} ${approvalWhen}: a technique must be approved by a Level 3 certified in ET. Have a certified ET Level 3 review and approve it.`,
+        : `The approver, ${approver.name}, ${list(check.problems)} (judged ${approvalWhen}): a technique must be approved by a Level 3 certified in ET. Have a certified ET Level 3 review and approve it.`,
       values: { approved: true, approverLevel: check.valid?.level ?? null, certificateExpiresOn: check.valid ? isoDay(check.valid.expiresOn) : null },
       basis: APPROVER_BASIS,
     });

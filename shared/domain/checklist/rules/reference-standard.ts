@@ -40,6 +40,17 @@ export const referenceStandard: Rule = ({ technique, policy, flawNormals }, resu
   const cosTolerance = Math.cos((policy.notchOrientationToleranceDeg * Math.PI) / 180) - 1e-9;
   const notchNormals = reference.notches.map((notch) => flawNormal(notch.orientation, notch.angleDeg));
   flaws.forEach((flaw, f) => {
+    if (flaw.orientation === 'laminar') {
+      results.push({
+        rule: 'reference-standard',
+        status: 'not_applicable',
+        flaw: flaw.id,
+        message: `Flaw "${flaw.id}" is laminar: eddy currents cannot find it, so no notch can stand for it (see orientation-coverage).`,
+        values: { flawDepthMm: flaw.depthMm },
+        basis: NOTCH_BASIS,
+      });
+      return;
+    }
     let shallowest = -1;
     for (let n = 0; n < notchNormals.length; n++) {
       if (normalAlignment(flawNormals[f], notchNormals[n]) < cosTolerance) continue;
