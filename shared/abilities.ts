@@ -140,6 +140,8 @@ function segregationRules({ cannot }: Builder, user: AbilityUser) {
   cannot(['CONFIRM_EFFECTIVE', 'NOT_EFFECTIVE'], 'Finding', { actionOwnerId: user.id });
   cannot('CLOSE', 'Finding', { authorId: user.id });
   cannot('CLOSE', 'Finding', { actionOwnerId: user.id });
+  // An auditor never audits an area they belong to (neither plans nor performs it).
+  if (user.areaId !== null) cannot(['create', 'START_FIELDWORK', 'FINISH_FIELDWORK'], 'Audit', { areaId: user.areaId });
   // A supersede by the uploader is always allowed (granted below); a quality manager may supersede others'.
 }
 

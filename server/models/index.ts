@@ -6,6 +6,11 @@ import { User, initUser } from './user';
 import { RoleAssignment, initRoleAssignment } from './role-assignment';
 import { TrailEntry, initTrailEntry, type TrailChanges } from './trail-entry';
 import { Session, initSession } from './session';
+import { Audit, initAudit, type AuditScopeTechnique } from './audit';
+import { ChecklistRun, initChecklistRun } from './checklist-run';
+import { Finding, initFinding } from './finding';
+import { CorrectiveAction, initCorrectiveAction } from './corrective-action';
+import { Signature, initSignature } from './signature';
 import { Certification, initCertification } from './certification';
 import { Equipment, initEquipment } from './equipment';
 import { ReferenceNotch, initReferenceNotch } from './reference-notch';
@@ -23,6 +28,8 @@ export { Certification, Equipment, ReferenceNotch, TechniqueEquipment, Technique
 export { Material, Technique, TechniqueRevision, PolicySetting, PolicyHead };
 export { EvidenceFile, OutboxMessage, CaughtMail };
 export type { TrailChanges, OutboxStatus };
+export { Audit, ChecklistRun, Finding, CorrectiveAction, Signature };
+export type { AuditScopeTechnique };
 
 let initialisedFor: Sequelize | undefined;
 
@@ -65,4 +72,27 @@ export function initModels(sequelize: Sequelize): void {
   PolicyHead.belongsTo(User, { as: 'updatedBy', foreignKey: 'updatedById' });
   EvidenceFile.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
   EvidenceFile.belongsTo(User, { as: 'supersededBy', foreignKey: 'supersededById' });
+
+  initWorkflowModels();
+}
+
+/** Audits, checklist runs, findings, corrective actions and signatures (the workflow records). */
+function initWorkflowModels(): void {
+  const sequelize = initialisedFor!;
+  initAudit(sequelize);
+  initChecklistRun(sequelize);
+  initFinding(sequelize);
+  initCorrectiveAction(sequelize);
+  initSignature(sequelize);
+  Audit.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
+  Audit.belongsTo(User, { as: 'leadAuditor', foreignKey: 'leadAuditorId' });
+  Audit.hasMany(Finding, { as: 'findings', foreignKey: 'auditId' });
+  Audit.hasMany(ChecklistRun, { as: 'checklistRuns', foreignKey: 'auditId' });
+  ChecklistRun.belongsTo(User, { as: 'runBy', foreignKey: 'runById' });
+  Finding.belongsTo(Audit, { as: 'audit', foreignKey: 'auditId' });
+  Finding.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  Finding.belongsTo(Area, { as: 'area', foreignKey: 'areaId' });
+  Finding.hasOne(CorrectiveAction, { as: 'action', foreignKey: 'findingId' });
+  CorrectiveAction.belongsTo(Finding, { as: 'finding', foreignKey: 'findingId' });
+  CorrectiveAction.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
 }

@@ -11,7 +11,11 @@ import { dashboardRoutes } from './dashboard.routes';
 import { techniqueRoutes } from './techniques.routes';
 import { policyRoutes } from './policy.routes';
 import { materialRoutes } from './materials.routes';
+import { auditRoutes } from './audits.routes';
+import { findingRoutes } from './findings.routes';
+import { actionRoutes } from './actions.routes';
+import { homeRoutes } from './home.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, techniqueRoutes, policyRoutes, materialRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes];

@@ -1,0 +1,21 @@
+// How many current (not superseded, fully stored) evidence files a record has:
+// the `evidenceCount` fact a corrective action's SUBMIT needs. Counted inside
+// the caller's transaction so the fact and the transition agree.
+import { Op, type Transaction } from 'sequelize';
+import { EvidenceFile } from '../models';
+
+export async function countCurrentEvidence(
+  transaction: Transaction | undefined,
+  recordType: 'audit' | 'finding' | 'action',
+  recordIds: number[],
+): Promise<Map<number, number>> {
+  const counts = new Map<number, number>(recordIds.map((id) => [id, 0]));
+  if (!recordIds.length) return counts;
+  const rows = (await EvidenceFile.count({
+    where: { recordType, recordId: { [Op.in]: recordIds }, supersededAt: null, storedAt: { [Op.ne]: null } },
+    group: ['recordId'],
+    transaction,
+  })) as unknown as Array<{ recordId: number; count: number }>;
+  for (const row of rows) counts.set(Number(row.recordId), Number(row.count));
+  return counts;
+}

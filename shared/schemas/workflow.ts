@@ -1,0 +1,317 @@
+// Request bodies and views of the workflow records: audits, checklist runs,
+// findings and corrective actions. The server validates with these; the client
+// types its forms and pages with the same definitions.
+import { z } from 'zod';
+import { FINDING_CLASSES, ROOT_CAUSE_METHODS } from '../../machines';
+import { IsoDateSchema, ListQueryBaseSchema } from './common';
+
+const text = (label: string, max = 4000) =>
+  z.string({ error: `${label} is required` }).trim().min(1, `${label} is required`).max(max, `${label} is at most ${max} characters`);
+const version = z.number({ error: 'version is required (the version you loaded)' }).int().min(0);
+const password = z.string({ error: 'your password is required to sign' }).min(1, 'your password is required to sign').max(1024);
+
+// ---- audits ----------------------------------------------------------------
+export const AuditScopeItemSchema = z
+  .object({
+    /** A technique of the register. */
+    techniqueId: z.number().int().positive().optional(),
+    /** Or the technique as written (JSON the checklist engine reads), when it is not in the register. */
+    technique: z.record(z.string(), z.unknown()).optional(),
+  })
+  .strict()
+  .refine((item) => Boolean(item.techniqueId) !== Boolean(item.technique), 'give either techniqueId or technique');
+
+export const AuditCreateSchema = z
+  .object({
+    title: text('title', 200),
+    criteria: text('criteria', 4000),
+    areaId: z.number().int().positive(),
+    leadAuditorId: z.number().int().positive(),
+    plannedStart: IsoDateSchema,
+    plannedEnd: IsoDateSchema,
+    techniques: z.array(AuditScopeItemSchema).min(1, 'add at least one technique to the scope').max(50),
+  })
+  .strict()
+  .refine((audit) => audit.plannedEnd >= audit.plannedStart, { path: ['plannedEnd'], message: 'the end is before the start' });
+export type AuditCreateInput = z.infer<typeof AuditCreateSchema>;
+
+export const AuditEventSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('START_FIELDWORK'), version }).strict(),
+  z.object({ type: z.literal('FINISH_FIELDWORK'), version }).strict(),
+  z.object({ type: z.literal('ISSUE'), version, password }).strict(),
+  z.object({ type: z.literal('CLOSE'), version }).strict(),
+  z.object({ type: z.literal('CANCEL'), version, reason: text('reason', 2000) }).strict(),
+]);
+export type AuditEventInput = z.infer<typeof AuditEventSchema>;
+
+export const AuditListQuerySchema = ListQueryBaseSchema.extend({
+  state: z.string().max(32).optional(),
+  areaId: z.coerce.number().int().positive().optional(),
+  owner: z.coerce.number().int().positive().optional(),
+}).strict();
+
+export const ChecklistRunCreateSchema = z
+  .object({
+    /** A technique in the audit's scope, by code. */
+    techniqueCode: z.string().trim().min(1).max(64).optional(),
+    /** Or a technique of the register, by id (it must be in scope). */
+    techniqueId: z.number().int().positive().optional(),
+    notes: z.record(z.string().regex(/^\d+$/, 'notes are keyed by result index'), z.string().max(4000)).optional(),
+  })
+  .strict()
+  .refine((body) => Boolean(body.techniqueCode) !== Boolean(body.techniqueId), 'give either techniqueCode or techniqueId');
+
+export const ChecklistRunNotesSchema = z
+  .object({
+    version,
+    notes: z.record(z.string().regex(/^\d+$/, 'notes are keyed by result index'), z.string().max(4000)),
+  })
+  .strict();
+
+export const ChecklistRunParamsSchema = z
+  .object({ id: z.coerce.number().int().positive(), runId: z.coerce.number().int().positive() })
+  .strict();
+
+// ---- findings --------------------------------------------------------------
+export const FindingCreateSchema = z
+  .object({
+    /** Prefill from a failed checklist result: the rule, message and values come from the run. */
+    checklistRunId: z.number().int().positive().optional(),
+    resultIndex: z.number().int().min(0).optional(),
+    title: text('title', 200).optional(),
+    rule: text('rule or clause', 200).optional(),
+    requirement: text('requirement', 4000).optional(),
+    objectiveEvidence: text('objective evidence', 8000).optional(),
+    techniqueCode: z.string().trim().min(1).max(64).optional(),
+  })
+  .strict()
+  .refine((body) => (body.checklistRunId === undefined) === (body.resultIndex === undefined), {
+    path: ['resultIndex'],
+    message: 'checklistRunId and resultIndex go together',
+  })
+  .refine((body) => body.checklistRunId !== undefined || (body.title && body.rule && body.requirement && body.objectiveEvidence), {
+    path: ['requirement'],
+    message: 'without a checklist result, give title, rule, requirement and objective evidence',
+  });
+export type FindingCreateInput = z.infer<typeof FindingCreateSchema>;
+
+export const FindingEventSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('SUBMIT'), version }).strict(),
+  z.object({ type: z.literal('WITHDRAW'), version, reason: text('reason', 2000) }).strict(),
+  z.object({ type: z.literal('CLASSIFY'), version, class: z.enum(FINDING_CLASSES), note: z.string().trim().max(4000).optional() }).strict(),
+  z.object({ type: z.literal('RECORD_CONTAINMENT'), version, description: text('containment', 4000) }).strict(),
+  z.object({ type: z.literal('CONFIRM_EFFECTIVE'), version, note: text('note', 4000) }).strict(),
+  z.object({ type: z.literal('NOT_EFFECTIVE'), version, reason: text('reason', 4000) }).strict(),
+  z.object({ type: z.literal('CLOSE'), version, password }).strict(),
+]);
+export type FindingEventInput = z.infer<typeof FindingEventSchema>;
+
+const booleanQuery = z.enum(['true', 'false']).optional();
+
+export const FindingListQuerySchema = ListQueryBaseSchema.extend({
+  state: z.string().max(32).optional(),
+  class: z.enum(FINDING_CLASSES).optional(),
+  areaId: z.coerce.number().int().positive().optional(),
+  owner: z.coerce.number().int().positive().optional(),
+  auditId: z.coerce.number().int().positive().optional(),
+  overdue: booleanQuery,
+}).strict();
+
+// ---- corrective actions ----------------------------------------------------
+export const ActionCreateSchema = z
+  .object({ findingId: z.number().int().positive(), ownerId: z.number().int().positive(), dueDate: IsoDateSchema })
+  .strict();
+export type ActionCreateInput = z.infer<typeof ActionCreateSchema>;
+
+const PlanItemSchema = z.object({ description: text('plan item', 2000), dueDate: IsoDateSchema }).strict();
+
+export const ActionEventSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('START'), version }).strict(),
+  z
+    .object({
+      type: z.literal('SUBMIT_PLAN'),
+      version,
+      method: z.enum(ROOT_CAUSE_METHODS),
+      rootCause: text('root cause analysis', 8000),
+      plan: z.array(PlanItemSchema).min(1, 'add at least one plan item').max(50),
+    })
+    .strict(),
+  z.object({ type: z.literal('APPROVE_PLAN'), version }).strict(),
+  z.object({ type: z.literal('RETURN_PLAN'), version, reason: text('reason', 2000) }).strict(),
+  z.object({ type: z.literal('SUBMIT'), version, summary: text('summary', 8000) }).strict(),
+  z.object({ type: z.literal('VERIFY'), version, password }).strict(),
+  z.object({ type: z.literal('RETURN'), version, reason: text('reason', 2000) }).strict(),
+  z.object({ type: z.literal('REQUEST_EXTENSION'), version, dueDate: IsoDateSchema, reason: text('reason', 2000) }).strict(),
+  z.object({ type: z.literal('APPROVE_EXTENSION'), version }).strict(),
+  z.object({ type: z.literal('REJECT_EXTENSION'), version, reason: text('reason', 2000) }).strict(),
+]);
+export type ActionEventInput = z.infer<typeof ActionEventSchema>;
+
+export const ActionListQuerySchema = ListQueryBaseSchema.extend({
+  state: z.string().max(32).optional(),
+  areaId: z.coerce.number().int().positive().optional(),
+  owner: z.coerce.number().int().positive().optional(),
+  overdue: booleanQuery,
+}).strict();
+
+// ---- views -----------------------------------------------------------------
+export interface PersonRef {
+  id: number;
+  displayName: string;
+}
+
+export interface SignatureView {
+  id: number;
+  event: string;
+  signerId: number;
+  printedName: string;
+  role: string;
+  meaning: string;
+  signedAt: string;
+  contentHash: string;
+}
+
+interface RecordBase {
+  id: number;
+  state: string;
+  version: number;
+  allowedEvents: string[];
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface AuditScopeItemView {
+  techniqueId: number | null;
+  code: string;
+  title: string;
+  revision: string;
+}
+
+export interface ChecklistRunView {
+  id: number;
+  auditId: number;
+  techniqueId: number | null;
+  techniqueCode: string;
+  techniqueRevision: string;
+  verdict: string;
+  output: unknown;
+  notes: Record<string, string>;
+  runBy: PersonRef | null;
+  runAt: string;
+  version: number;
+}
+
+export interface FindingSummaryView {
+  id: number;
+  number: string;
+  title: string;
+  state: string;
+  class: string | null;
+  dueDate: string | null;
+}
+
+export interface AuditView extends RecordBase {
+  title: string;
+  criteria: string;
+  areaId: number;
+  areaName: string | null;
+  leadAuditor: PersonRef | null;
+  plannedStart: string;
+  plannedEnd: string;
+  scope: AuditScopeItemView[];
+  cancelReason: string | null;
+  issuedAt: string | null;
+  closedAt: string | null;
+  openFindingCount: number;
+}
+
+export interface AuditDetailView extends AuditView {
+  checklistRuns: ChecklistRunView[];
+  findings: FindingSummaryView[];
+  signatures: SignatureView[];
+  /** Whether this user may run the checklist and raise findings now. */
+  canRunChecklist: boolean;
+  canRaiseFinding: boolean;
+}
+
+export interface ActionSummaryView {
+  id: number;
+  number: string;
+  state: string;
+  owner: PersonRef | null;
+  dueDate: string;
+}
+
+export interface FindingView extends RecordBase {
+  number: string;
+  title: string;
+  auditId: number | null;
+  auditTitle: string | null;
+  techniqueId: number | null;
+  techniqueCode: string | null;
+  checklistRunId: number | null;
+  resultIndex: number | null;
+  rule: string;
+  requirement: string;
+  objectiveEvidence: string;
+  resultValues: Record<string, unknown> | null;
+  class: string | null;
+  classificationNote: string | null;
+  containment: string | null;
+  containmentDueDate: string | null;
+  dueDate: string | null;
+  effectivenessNote: string | null;
+  notEffectiveReason: string | null;
+  closureNote: string | null;
+  withdrawReason: string | null;
+  closedAt: string | null;
+  author: PersonRef | null;
+  areaId: number;
+  areaName: string | null;
+  action: ActionSummaryView | null;
+  overdue: boolean;
+  /** The quality manager may assign a corrective action now (finding in action_open without one). */
+  canAssignAction: boolean;
+}
+
+export interface FindingDetailView extends FindingView {
+  signatures: SignatureView[];
+}
+
+export interface ActionView extends RecordBase {
+  number: string;
+  findingId: number;
+  finding: FindingSummaryView | null;
+  owner: PersonRef | null;
+  dueDate: string;
+  pendingExtension: { dueDate: string; reason: string } | null;
+  method: string | null;
+  rootCause: string | null;
+  plan: { description: string; dueDate: string }[];
+  submissionSummary: string | null;
+  returnReason: string | null;
+  reopenReason: string | null;
+  verifiedAt: string | null;
+  evidenceCount: number;
+  overdue: boolean;
+}
+
+export interface ActionDetailView extends ActionView {
+  signatures: SignatureView[];
+}
+
+export interface HomeItem {
+  recordType: 'audit' | 'finding' | 'action';
+  id: number;
+  label: string;
+  title: string;
+  state: string;
+  /** What this person is expected to do now. */
+  todo: string;
+  dueDate: string | null;
+  overdue: boolean;
+}
+
+export interface HomeView {
+  items: HomeItem[];
+}
