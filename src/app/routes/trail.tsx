@@ -1,5 +1,13 @@
-import { SectionPending } from '../../components/ui/section-pending';
+import { PageHeader } from '../../components/ui/states';
+import { TrailVerification } from '../../features/trail/components/trail-verification';
+import { RecordLookup } from '../../features/trail/components/record-lookup';
 
 export function Component() {
-  return <SectionPending title="Trail" purpose="Verification of the tamper-evident trail." />;
+  return (
+    <div>
+      <PageHeader title="Trail" />
+      <TrailVerification />
+      <RecordLookup />
+    </div>
+  );
 }
