@@ -19,4 +19,5 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/trail', label: 'Trail', visible: (ability) => ability.can('verify', 'Trail') },
   { to: '/mailbox', label: 'Mailbox', visible: (ability) => ability.can('read', 'Mailbox') },
   { to: '/admin/users', label: 'People', visible: (ability) => ability.can('create', 'User') },
+  { to: '/admin/policy', label: 'Policy', visible: (ability) => ability.can('update', 'Policy') },
 ];

@@ -32,6 +32,8 @@ export interface TechniqueEditorProps {
   saving: boolean;
   saveError: unknown;
   onSave(technique: Technique, areaId: number | null): Promise<unknown>;
+  /** After a successful save (navigation from here is not blocked). */
+  onSaved?(result: unknown): void;
   /** Extra header actions (approve), told whether unsaved changes exist. */
   renderActions?(state: { dirty: boolean }): ReactNode;
 }
@@ -113,7 +115,7 @@ function LivePanel({ form, policy }: { form: TechniqueFormApi; policy: Policy | 
   );
 }
 
-export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving, saveError, onSave, renderActions }: TechniqueEditorProps) {
+export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving, saveError, onSave, onSaved, renderActions }: TechniqueEditorProps) {
   const policy = useOrganisationPolicy();
   const form = useForm<TechniqueInput, unknown, Technique>({
     resolver: zodResolver(TechniqueSchema),
@@ -123,8 +125,12 @@ export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving,
   const [areaId, setAreaId] = useState<number | null>(initialAreaId);
   const [importState, setImportState] = useState<{ message: string; issues: TechniqueIssue[]; ok: boolean } | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
-  const dirty = form.formState.isDirty || areaId !== initialAreaId;
-  const blocker = useBlocker(({ currentLocation, nextLocation }) => dirty && !saving && currentLocation.pathname !== nextLocation.pathname);
+  const [savedAreaId, setSavedAreaId] = useState<number | null>(initialAreaId);
+  const leaving = useRef(false);
+  const dirty = form.formState.isDirty || areaId !== savedAreaId;
+  const blocker = useBlocker(
+    ({ currentLocation, nextLocation }) => dirty && !saving && !leaving.current && currentLocation.pathname !== nextLocation.pathname,
+  );
 
   useEffect(() => {
     if (!dirty) return;
@@ -142,8 +148,19 @@ export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving,
   }, [saveError, form]);
 
   const submit = form.handleSubmit(async (technique) => {
-    await onSave(technique, areaId);
+    let result: unknown;
+    try {
+      result = await onSave(technique, areaId);
+    } catch {
+      return; // the error shows from saveError; the form keeps every change
+    }
+    leaving.current = true;
     form.reset(technique);
+    setSavedAreaId(areaId);
+    onSaved?.(result);
+    setTimeout(() => {
+      leaving.current = false;
+    }, 0);
   });
 
   const exportFile = () => {
