@@ -4,9 +4,10 @@ import type { Sequelize } from 'sequelize';
 import { initModels, User } from '../../models';
 import { seedPeople } from './people.seed';
 import { seedTechniques } from './techniques.seed';
+import { seedRegisters } from './registers.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 
-export const seedSteps: SeedStep[] = [seedPeople, seedTechniques];
+export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);
