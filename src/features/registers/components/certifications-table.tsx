@@ -40,7 +40,7 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
       column.accessor('expiresOn', {
         header: 'Expires',
         cell: ({ row }) => (
-          <div className="flex flex-col gap-1">
+          <div className="flex flex-col items-start gap-1">
             <span>{row.original.expiresOn}</span>
             <CertificateBadge flag={row.original.certificate} />
           </div>
@@ -49,7 +49,7 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
       column.accessor('nearVisionExamOn', {
         header: 'Near-vision exam',
         cell: ({ row }) => (
-          <div className="flex flex-col gap-1">
+          <div className="flex flex-col items-start gap-1">
             <span>{row.original.nearVisionExamOn ?? '—'}</span>
             <VisionBadge flag={row.original.vision} />
           </div>

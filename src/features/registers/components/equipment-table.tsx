@@ -61,7 +61,7 @@ export function EquipmentTable() {
       column.accessor('calibrationDueOn', {
         header: 'Calibration due',
         cell: ({ row }) => (
-          <div className="flex flex-col gap-1">
+          <div className="flex flex-col items-start gap-1">
             <span>{row.original.calibrationDueOn ?? '—'}</span>
             <CalibrationBadge flag={row.original.calibration} status={row.original.status} />
           </div>
