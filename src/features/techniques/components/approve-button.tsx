@@ -40,15 +40,14 @@ export function ApproveButton({
           approve.reset();
         }}
         onConfirm={() =>
-          approve.mutate(
-            { revision: revision.revision, version: revision.version },
-            {
-              onSuccess: () => {
-                setOpen(false);
-                onApproved?.();
-              },
-            },
-          )
+          // The promise, not mutate's callbacks: this button unmounts as soon as the revision is approved.
+          approve
+            .mutateAsync({ revision: revision.revision, version: revision.version })
+            .then(() => {
+              setOpen(false);
+              onApproved?.();
+            })
+            .catch(() => undefined)
         }
       >
         <p>

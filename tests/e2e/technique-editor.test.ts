@@ -1,0 +1,128 @@
+// The technique editor in Chromium against the built client and the real server:
+// the checklist changes live as the Level 3 edits, approval makes the revision
+// read-only, and an auditor opens its checklist.
+import { readFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { inject } from 'vitest';
+import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const BOBBIN = JSON.parse(readFileSync('/work/shared/examples/heat-exchanger-bobbin.json', 'utf8'));
+
+async function signedInPage(email: string): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+  const page = await context.newPage();
+  await signInAs(page, email);
+  await page.getByRole('heading', { level: 1 }).waitFor();
+  return page;
+}
+
+const verdictOf = (page: Page) => page.getByTestId('checklist-verdict').getAttribute('data-verdict');
+
+describe('technique editor', () => {
+  it('when a Level 3 edits a draft, then the checklist verdict changes live; approving makes it read-only; an auditor opens its checklist', async () => {
+    const code = `E2E-ET-${Date.now().toString(36).toUpperCase()}`;
+    const page = await signedInPage('level3@tarnbrook.example');
+    await page.goto(`${inject('baseUrl')}/techniques/new`);
+    await page.getByRole('heading', { name: 'New technique' }).waitFor();
+
+    // Start from a technique file: the bobbin example, which misses the circumferential crack.
+    await page.getByTestId('import-file').setInputFiles({
+      name: 'bobbin.json',
+      mimeType: 'application/json',
+      buffer: Buffer.from(JSON.stringify({ ...BOBBIN, code })),
+    });
+    await page.getByRole('status').filter({ hasText: 'Loaded bobbin.json' }).waitFor();
+    await page.getByTestId('checklist-verdict').waitFor();
+    expect(await verdictOf(page)).toBe('does-not-conform');
+    expect(await page.locator('[data-rule="orientation-coverage"][data-status="fail"]').count()).toBe(1);
+
+    await page.getByRole('button', { name: 'Create draft' }).click();
+    await page.waitForURL(/\/techniques\/\d+\/edit$/);
+    const techniqueUrl = page.url().replace(/\/edit$/, '');
+    await page.getByRole('heading', { name: new RegExp(`Editing ${code} revision A`) }).waitFor();
+    expect(await verdictOf(page)).toBe('does-not-conform');
+
+    // A multi-directional assembly induces current along u and v: both cracks are crossed. No save yet.
+    await page.getByLabel('Coil type').selectOption('multidirectional');
+    await page.locator('[data-testid="checklist-verdict"][data-verdict="conforms"]').waitFor();
+    expect(await page.getByRole('button', { name: 'Save draft' }).isEnabled()).toBe(true);
+    expect(await page.getByRole('button', { name: 'Approve revision A' }).isDisabled()).toBe(true);
+
+    // And a lower frequency changes the plot's legend at once.
+    const frequencies = page.getByLabel('Test frequencies');
+    await frequencies.fill('20 kHz, 160 kHz');
+    await page.getByTestId('depth-plot').getByText('20 kHz (δ =').waitFor();
+    await page.getByTestId('frame-coil-0').waitFor();
+    await page.screenshot({ path: screenshotPath('technique-editor'), fullPage: true });
+
+    // An invalid file changes nothing and says what is wrong.
+    await page.getByTestId('import-file').setInputFiles({
+      name: 'broken.json',
+      mimeType: 'application/json',
+      buffer: Buffer.from(JSON.stringify({ ...BOBBIN, coils: [{ ...BOBBIN.coils[0], diameterMm: -1 }] })),
+    });
+    const alert = page.getByRole('alert').filter({ hasText: 'broken.json is not a valid technique' });
+    await alert.waitFor();
+    expect(await alert.textContent()).toContain('coils[0].diameterMm');
+    expect(await page.getByLabel('Coil type').inputValue()).toBe('multidirectional');
+    expect(await frequencies.inputValue()).toBe('20 kHz, 160 kHz');
+
+    await page.getByRole('button', { name: 'Save draft' }).click();
+    await page.getByRole('button', { name: 'Saved' }).waitFor();
+
+    await page.getByRole('button', { name: 'Approve revision A' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByText('read-only').waitFor();
+    await dialog.getByRole('button', { name: 'Approve revision A' }).click();
+    await page.waitForURL(techniqueUrl);
+    await page.getByText('approved by Sunniva Brack').waitFor();
+    expect(await page.getByRole('link', { name: /Edit draft/ }).count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Start a new revision' }).count()).toBe(1);
+    await page.context().close();
+
+    const auditor = await signedInPage('auditor@tarnbrook.example');
+    await auditor.goto(techniqueUrl);
+    await auditor.getByRole('heading', { name: 'Checklist, revision A' }).waitFor();
+    expect(await verdictOf(auditor)).toBe('conforms');
+    expect(await auditor.getByText('Caution:').count()).toBeGreaterThan(0);
+    expect(await auditor.getByRole('button', { name: /Approve/ }).count()).toBe(0);
+    expect(await auditor.getByRole('button', { name: 'Start a new revision' }).count()).toBe(0);
+    await auditor.screenshot({ path: screenshotPath('technique-checklist-auditor'), fullPage: true });
+    await auditor.context().close();
+  });
+
+  it('when anyone opens the register, then the demo techniques show with their state and verdict, filterable by state', async () => {
+    const page = await signedInPage('technician@tarnbrook.example');
+    await page.goto(`${inject('baseUrl')}/techniques?q=TAC-ET`);
+    await page.getByRole('link', { name: 'TAC-ET-023' }).waitFor();
+    const rowText = await page.getByRole('row').filter({ hasText: 'TAC-ET-023' }).textContent();
+    expect(rowText).toContain('Approved');
+    expect(rowText).toContain('Does not conform');
+    await page.getByLabel('State of the latest revision').selectOption('draft');
+    await page.waitForURL(/state=draft/);
+    await page.getByRole('link', { name: 'TAC-ET-023' }).waitFor({ state: 'detached' });
+    await page.getByRole('link', { name: 'TAC-ET-004' }).waitFor();
+    expect(await page.getByRole('link', { name: 'New technique' }).count()).toBe(0);
+    await page.context().close();
+  });
+
+  it('when the admin opens the policy page, then each setting shows its default, basis and value', async () => {
+    const page = await signedInPage('admin@tarnbrook.example');
+    await page.getByRole('link', { name: 'Policy' }).click();
+    await page.getByRole('heading', { name: 'Policy settings' }).waitFor();
+    const row = page.locator('[data-setting="fillFactorMinEncircling"]');
+    expect(await row.textContent()).toContain('common practice, no single source');
+    expect(await page.getByLabel('Minimum fill factor, encircling coil').inputValue()).toBe('0.7');
+    await page.screenshot({ path: screenshotPath('policy-settings'), fullPage: true });
+    await page.context().close();
+  });
+});
