@@ -1,13 +1,14 @@
 // The seam between the technique register and the personnel/equipment registers.
-// The checklist's `personnel` and `equipment` rules run only when this returns
-// facts; until the registers fill it in, they are not evaluated and the
-// checklist response says so (registersIncluded: false).
+// The checklist's `personnel` and `equipment` rules run on the facts returned
+// here: the approver's certificates, the people linked to the technique as
+// performers, and the instruments, probes and reference standards linked to it
+// (tables technique_performers and technique_equipment; see technique-links.service.ts).
 //
-// Owner of the body: the registers contributor. Keep the signature: the
-// technique checklist route calls it with the technique and the revision evaluated.
+// Keep the signature: the technique checklist route calls it with the technique and the revision evaluated.
 import type { Transaction } from 'sequelize';
 import type { AppDeps } from '../app-deps';
 import type { RegisterFactsInput } from '../../shared/domain/checklist';
+import { buildRegisterFacts } from './technique-links.service';
 
 export interface RegisterFactsRequest {
   techniqueId: number;
@@ -20,7 +21,12 @@ export interface RegisterFactsRequest {
 
 export async function registerFactsForTechnique(
   _deps: AppDeps,
-  _request: RegisterFactsRequest,
+  request: RegisterFactsRequest,
 ): Promise<RegisterFactsInput | undefined> {
-  return undefined;
+  return buildRegisterFacts({
+    techniqueId: request.techniqueId,
+    approvedById: request.approvedById,
+    approvedAt: request.approvedAt,
+    transaction: request.transaction,
+  });
 }
