@@ -78,7 +78,7 @@ export function DepthPlot({ technique, values, penetrationFactor, animate = fals
       </p>
       <div className="mt-2 h-80 w-full" data-testid="depth-plot">
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ top: 16, right: 24, bottom: 28, left: 8 }}>
+          <LineChart data={data} margin={{ top: 16, right: 64, bottom: 28, left: 8 }}>
             <CartesianGrid stroke="#14343b22" />
             <XAxis dataKey="x" type="number" domain={[0, maxDepthMm]} tickFormatter={(value: number) => formatNumber(value, 2)} stroke="#3f5f66">
               <Label value="Depth below the surface, x (mm)" position="insideBottom" offset={-18} fill="#14343b" />

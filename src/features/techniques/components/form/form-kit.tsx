@@ -37,7 +37,9 @@ export function useFieldError(form: TechniqueFormApi, path: string): string | un
 }
 
 const inputClass =
-  'w-full rounded-md border border-ink/25 bg-white px-2.5 py-1.5 text-sm text-ink shadow-inner shadow-ink/5 aria-[invalid=true]:border-fail read-only:bg-paper read-only:text-ink-soft';
+  'w-full rounded-md border border-ink/25 bg-white px-2.5 py-1.5 text-sm text-ink shadow-inner shadow-ink/5 aria-[invalid=true]:border-fail';
+// Selects and checkboxes match :read-only too, so only text boxes get the read-only look.
+const textInputClass = `${inputClass} read-only:bg-paper read-only:text-ink-soft`;
 
 function Shell({ label, error, hint, children }: { label: string; error?: string; hint?: ReactNode; children: (id: string, describedBy?: string) => ReactNode }) {
   const id = useId();
@@ -65,7 +67,7 @@ function Shell({ label, error, hint, children }: { label: string; error?: string
 export function InputField({ label, error, hint, unit, ...props }: ComponentProps<'input'> & { label: string; error?: string; hint?: ReactNode; unit?: string }) {
   return (
     <Shell label={unit ? `${label} (${unit})` : label} error={error} hint={hint}>
-      {(id, describedBy) => <input id={id} aria-invalid={Boolean(error)} aria-describedby={describedBy} className={inputClass} {...props} />}
+      {(id, describedBy) => <input id={id} aria-invalid={Boolean(error)} aria-describedby={describedBy} className={textInputClass} {...props} />}
     </Shell>
   );
 }
