@@ -1,4 +1,4 @@
-// How many current (not superseded, fully stored) evidence files a record has:
+// How many current (not superseded) evidence files a record has:
 // the `evidenceCount` fact a corrective action's SUBMIT needs. Counted inside
 // the caller's transaction so the fact and the transition agree.
 import { Op, type Transaction } from 'sequelize';
@@ -12,7 +12,7 @@ export async function countCurrentEvidence(
   const counts = new Map<number, number>(recordIds.map((id) => [id, 0]));
   if (!recordIds.length) return counts;
   const rows = (await EvidenceFile.count({
-    where: { recordType, recordId: { [Op.in]: recordIds }, supersededAt: null, storedAt: { [Op.ne]: null } },
+    where: { recordType, recordId: { [Op.in]: recordIds }, supersededAt: null },
     group: ['recordId'],
     transaction,
   })) as unknown as Array<{ recordId: number; count: number }>;

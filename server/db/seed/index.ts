@@ -5,9 +5,10 @@ import { initModels, User } from '../../models';
 import { seedPeople } from './people.seed';
 import { seedTechniques } from './techniques.seed';
 import { seedRegisters } from './registers.seed';
+import { seedWorkflows } from './workflows.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 
-export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters];
+export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedWorkflows];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);
