@@ -50,8 +50,9 @@ export async function loadTechniqueView(ability: AppAbility, id: number): Promis
   return presentTechnique(ability, technique);
 }
 
-const TECHNIQUE_SORTS = ['code', 'title', 'updatedAt'] as const;
-const REVISION_SORTS = ['revision', 'state', 'verdict'] as const;
+const TECHNIQUE_SORTS = ['code', 'title'] as const;
+// "Changed" is the latest revision's last change (edits and approvals touch the revision, not always the technique row).
+const REVISION_SORTS = ['revision', 'state', 'verdict', 'updatedAt'] as const;
 type SortField = (typeof TECHNIQUE_SORTS)[number] | (typeof REVISION_SORTS)[number];
 
 export async function listTechniques(query: TechniqueListQuery): Promise<ListResponse<TechniqueListItem>> {

@@ -262,6 +262,9 @@ describe('reading the register', () => {
     const bySate = await technician.agent.get(`/api/techniques?q=${tag}&sort=state`);
     expect(bySate.body.items.map((item: { state: string }) => item.state)).toEqual(['approved', 'draft', 'draft']);
 
+    const recent = await technician.agent.get(`/api/techniques?q=${tag}&sort=-updatedAt`);
+    expect(recent.body.items[0].code).toBe(`${tag}-3`);
+
     expect((await technician.agent.get('/api/techniques?state=open')).status).toBe(400);
     const one = await technician.agent.get(`/api/techniques/${a.id}`);
     expect(one.status).toBe(200);

@@ -41,7 +41,8 @@ export function TechniquesTable() {
       }),
       column.accessor('state', { header: 'State', cell: (info) => <StateBadge state={info.getValue()} /> }),
       column.accessor('verdict', {
-        header: 'Checklist',
+        // Stored per revision from the technique as written; people and equipment are checked on the technique's page.
+        header: 'Checklist as written',
         cell: (info) => (
           <div>
             <VerdictBadge verdict={info.getValue()} />
