@@ -8,6 +8,7 @@ import { createLogger } from './lib/logger';
 import type { AppConfig } from './config/env';
 import type { AppDeps } from './app-deps';
 import { createSequelize } from './db/sequelize';
+import { startMail, type MailRuntime } from './mail';
 
 export const CLIENT_DIR = path.resolve(fileURLToPath(new URL('.', import.meta.url)), '../dist');
 
@@ -15,6 +16,8 @@ export interface RunningServer {
   server: http.Server;
   deps: AppDeps;
   url: string;
+  /** Outbox worker, scheduler and (without SMTP_URL) the local SMTP fake. */
+  mail: MailRuntime;
   close(): Promise<void>;
 }
 
@@ -25,6 +28,7 @@ export async function startServer(
   const logger = createLogger(config.logLevel);
   const deps: AppDeps = { config, sequelize, logger, clock: { now: () => new Date() } };
   const app = createApp(deps, { clientDir });
+  const mail = await startMail(deps);
   const server = http.createServer(app);
   // Bounded waits: a slow client or a stuck request cannot hold a socket forever.
   server.requestTimeout = 60_000;
@@ -41,11 +45,13 @@ export async function startServer(
     server,
     deps,
     url,
+    mail,
     async close() {
       await new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      await mail.stop();
       app.close();
       await sequelize.close();
     },

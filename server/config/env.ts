@@ -37,6 +37,11 @@ const EnvSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().optional(),
   SCHEDULER: booleanFromEnv.default(true),
   SCHEDULER_INTERVAL_SECONDS: z.coerce.number().int().min(1).default(60),
+  /** Reminder timing: due-soon notice, escalation to the quality manager, audit notice, digest hour (UTC). */
+  REMINDER_DUE_SOON_DAYS: z.coerce.number().int().min(1).max(90).default(7),
+  REMINDER_ESCALATE_AFTER_DAYS: z.coerce.number().int().min(1).max(90).default(3),
+  REMINDER_AUDIT_NOTICE_DAYS: z.coerce.number().int().min(1).max(90).default(7),
+  MAIL_DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(6),
   LOG_LEVEL: z.enum(['silent', 'error', 'info', 'debug']).default('info'),
 });
 
@@ -61,6 +66,7 @@ export interface AppConfig {
     s3: { endpoint?: string; bucket?: string; region: string; accessKeyId?: string; secretAccessKey?: string };
   };
   scheduler: { enabled: boolean; intervalSeconds: number };
+  reminders: { dueSoonDays: number; escalateAfterDays: number; auditNoticeDays: number; digestHourUtc: number };
   logLevel: Env['LOG_LEVEL'];
 }
 
@@ -105,6 +111,12 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       },
     },
     scheduler: { enabled: env.SCHEDULER, intervalSeconds: env.SCHEDULER_INTERVAL_SECONDS },
+    reminders: {
+      dueSoonDays: env.REMINDER_DUE_SOON_DAYS,
+      escalateAfterDays: env.REMINDER_ESCALATE_AFTER_DAYS,
+      auditNoticeDays: env.REMINDER_AUDIT_NOTICE_DAYS,
+      digestHourUtc: env.MAIL_DIGEST_HOUR_UTC,
+    },
     logLevel: env.LOG_LEVEL,
   };
 }

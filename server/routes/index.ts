@@ -5,6 +5,7 @@ import { userRoutes } from './users.routes';
 import { areaRoutes } from './areas.routes';
 import { trailRoutes } from './trail.routes';
 import { evidenceRoutes } from './evidence.routes';
+import { mailboxRoutes } from './mailbox.routes';
 import { certificationRoutes } from './certifications.routes';
 import { equipmentRoutes } from './equipment.routes';
 import { dashboardRoutes } from './dashboard.routes';
@@ -18,4 +19,4 @@ import { homeRoutes } from './home.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes];
