@@ -63,6 +63,8 @@ describe('technique editor', () => {
     await page.getByTestId('depth-plot').getByText('20 kHz (δ =').waitFor();
     await page.getByTestId('frame-coil-0').waitFor();
     await page.screenshot({ path: screenshotPath('technique-editor'), fullPage: true });
+    await page.getByRole('figure', { name: 'Current density against depth' }).screenshot({ path: screenshotPath('technique-editor-depth-plot') });
+    await page.getByRole('figure', { name: 'Induced current against flaw orientation' }).screenshot({ path: screenshotPath('technique-editor-frame-diagram') });
 
     // An invalid file changes nothing and says what is wrong.
     await page.getByTestId('import-file').setInputFiles({

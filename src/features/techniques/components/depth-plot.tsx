@@ -65,7 +65,12 @@ export function DepthPlot({ technique, values, penetrationFactor, animate = fals
   }, [technique, values, penetrationFactor]);
 
   if (series.length === 0) return null;
-  const flaws = technique.flaws.filter((flaw) => flawDepthMm(flaw) <= maxDepthMm);
+  // Flaws at the same depth share one line and one label.
+  const flawLines = new Map<number, string[]>();
+  for (const flaw of technique.flaws) {
+    const depth = flawDepthMm(flaw);
+    if (depth <= maxDepthMm) flawLines.set(depth, [...(flawLines.get(depth) ?? []), flaw.id]);
+  }
 
   return (
     <figure className="rounded-lg border border-ink/10 bg-white p-4" aria-labelledby="depth-plot-title">
@@ -93,13 +98,13 @@ export function DepthPlot({ technique, values, penetrationFactor, animate = fals
             <Legend verticalAlign="top" height={28} />
             <ReferenceLine y={36.8} stroke="#3f5f66" strokeDasharray="4 4" label={{ value: '1δ: 36.8 %', position: 'right', fill: '#3f5f66', fontSize: 11 }} />
             <ReferenceLine y={5} stroke="#3f5f66" strokeDasharray="4 4" label={{ value: '3δ: 5 %', position: 'right', fill: '#3f5f66', fontSize: 11 }} />
-            {flaws.map((flaw) => (
+            {[...flawLines].map(([depth, ids]) => (
               <ReferenceLine
-                key={flaw.id}
-                x={flawDepthMm(flaw)}
+                key={depth}
+                x={depth}
                 stroke="#b42318"
                 strokeWidth={1.5}
-                label={{ value: `${flaw.id} (${formatNumber(flawDepthMm(flaw))} mm)`, position: 'insideTopRight', fill: '#b42318', fontSize: 11, angle: -90, offset: 12 }}
+                label={{ value: `${ids.join(', ')} (${formatNumber(depth)} mm)`, position: 'insideTopRight', fill: '#b42318', fontSize: 11, angle: -90, offset: 12 }}
               />
             ))}
             {series.map((s) => (

@@ -10,7 +10,18 @@ import { COIL_TYPE_LABELS, formatNumber } from './labels';
 
 const SIZE = 240;
 const C = SIZE / 2;
-const FLAW_DASHES = ['', '7 4', '2 4', '10 3 2 3', '4 2'];
+/** The drawing is SIZE square; the frame's key sits in a strip below it. */
+const HEIGHT = SIZE + 44;
+const FLAW_DASHES = ['', '6 3', '2 3'];
+/** Where flaws are drawn: the four quadrants around the centre, then between them. */
+const FLAW_SPOTS: readonly (readonly [number, number])[] = [
+  [C - 58, C - 62],
+  [C + 58, C - 62],
+  [C + 58, C + 40],
+  [C - 58, C + 40],
+  [C, C - 92],
+  [C + 92, C - 10],
+];
 const COPPER = '#c0652c';
 const PASS = '#2f7d4f';
 const FAIL = '#b42318';
@@ -47,7 +58,7 @@ function CoilPanel({
         Coil {coilIndex + 1}: {COIL_TYPE_LABELS[coil.type]}
       </p>
       <p className="text-xs text-ink-soft">Induced current flows {COIL_CURRENT_WORDS[coil.type]}.</p>
-      <svg viewBox={`0 0 ${SIZE} ${SIZE}`} className="mt-1 h-60 w-60" role="img" aria-label={`Coil ${coilIndex + 1} current directions against the expected flaws`}>
+      <svg viewBox={`0 0 ${SIZE} ${HEIGHT}`} className="mt-1 h-[17rem] w-60" role="img" aria-label={`Coil ${coilIndex + 1} current directions against the expected flaws`}>
         <defs>
           <marker id={`${id}-arrow`} viewBox="0 0 10 10" refX="8" refY="5" markerWidth="6" markerHeight="6" orient="auto-start-reverse">
             <path d="M0,0 L10,5 L0,10 z" fill={COPPER} />
@@ -56,12 +67,12 @@ function CoilPanel({
             <path d="M0,0 L10,5 L0,10 z" fill="#14343b" />
           </marker>
         </defs>
-        <rect x="1" y="1" width={SIZE - 2} height={SIZE - 2} rx="8" fill="#f6f4ef" stroke="#14343b22" />
+        <rect x="1" y="1" width={SIZE - 2} height={HEIGHT - 2} rx="8" fill="#f6f4ef" stroke="#14343b22" />
 
         {/* Induced current */}
         {directions.kind === 'in-plane' ? (
           <g>
-            <circle cx={C} cy={C} r={62} fill="none" stroke={COPPER} strokeWidth={3} />
+            <circle cx={C} cy={C} r={62} fill="none" stroke={COPPER} strokeWidth={3} opacity={0.75} />
             {[0, 90, 180, 270].map((angle) => {
               const a = (angle * Math.PI) / 180;
               const x = C + 62 * Math.cos(a);
@@ -89,45 +100,45 @@ function CoilPanel({
           ))
         )}
 
-        {/* Flaw traces on the surface */}
+        {/* Flaw traces on the surface, each in a quadrant of its own so none hides a current arrow or another flaw */}
         {flaws.map(({ flaw, f, normal, inPlane, covered }) => {
           const colour = covered ? PASS : FAIL;
-          const dash = FLAW_DASHES[f % FLAW_DASHES.length];
+          const dash = FLAW_DASHES[Math.floor(f / FLAW_SPOTS.length) % FLAW_DASHES.length];
+          const [cx, cy] = FLAW_SPOTS[f % FLAW_SPOTS.length];
+          const label = (
+            <text x={cx} y={cy + 26} fontSize="10" fill={colour} textAnchor="middle">
+              {flaw.id.length > 16 ? `${flaw.id.slice(0, 15)}…` : flaw.id}
+            </text>
+          );
           if (inPlane < 1e-6) {
-            const inset = 30 + f * 6;
             return (
               <g key={flaw.id}>
-                <rect x={inset} y={inset} width={SIZE - 2 * inset} height={SIZE - 2 * inset} fill="none" stroke={colour} strokeWidth={2} strokeDasharray={dash || '3 3'} />
-                <text x={inset + 4} y={inset + 12} fontSize="10" fill={colour}>
-                  {flaw.id} (laminar)
-                </text>
+                <ellipse cx={cx} cy={cy} rx={20} ry={9} fill="none" stroke={colour} strokeWidth={2.5} strokeDasharray="3 2" />
+                {label}
               </g>
             );
           }
           // The crack's trace on the surface runs perpendicular to its plane's in-plane normal.
           const tu = -normal[1] / inPlane;
           const tv = normal[0] / inPlane;
-          const x2 = C + 80 * tu;
-          const y2 = C - 80 * tv;
           return (
             <g key={flaw.id}>
-              <line x1={C - 80 * tu} y1={C + 80 * tv} x2={x2} y2={y2} stroke={colour} strokeWidth={2.5} strokeDasharray={dash} />
-              <text x={Math.min(SIZE - 70, Math.max(4, x2 + 4))} y={Math.min(SIZE - 24, Math.max(12, y2 - 4 - f * 11))} fontSize="10" fill={colour}>
-                {flaw.id}
-              </text>
+              <line x1={cx - 18 * tu} y1={cy + 18 * tv} x2={cx + 18 * tu} y2={cy - 18 * tv} stroke={colour} strokeWidth={4} strokeLinecap="round" strokeDasharray={dash} />
+              {label}
             </g>
           );
         })}
 
         {/* The frame: u to the right, v up, n out of the page */}
         <g fontSize="10" fill="#14343b">
-          <line x1={18} y1={SIZE - 18} x2={62} y2={SIZE - 18} stroke="#14343b" strokeWidth={1.5} markerEnd={`url(#${id}-axis)`} />
-          <line x1={18} y1={SIZE - 18} x2={18} y2={SIZE - 62} stroke="#14343b" strokeWidth={1.5} markerEnd={`url(#${id}-axis)`} />
-          <circle cx={18} cy={SIZE - 18} r={4} fill="none" stroke="#14343b" />
-          <circle cx={18} cy={SIZE - 18} r={1.2} fill="#14343b" />
-          <text x={66} y={SIZE - 15}>{names.u}</text>
-          <text x={8} y={SIZE - 66}>{names.v}</text>
-          <text x={26} y={SIZE - 24}>n</text>
+          <line x1={0} y1={SIZE} x2={SIZE} y2={SIZE} stroke="#14343b22" />
+          <line x1={24} y1={HEIGHT - 12} x2={60} y2={HEIGHT - 12} stroke="#14343b" strokeWidth={1.5} markerEnd={`url(#${id}-axis)`} />
+          <line x1={24} y1={HEIGHT - 12} x2={24} y2={HEIGHT - 38} stroke="#14343b" strokeWidth={1.5} markerEnd={`url(#${id}-axis)`} />
+          <circle cx={24} cy={HEIGHT - 12} r={4} fill="none" stroke="#14343b" />
+          <circle cx={24} cy={HEIGHT - 12} r={1.2} fill="#14343b" />
+          <text x={64} y={HEIGHT - 9}>{names.u}</text>
+          <text x={30} y={HEIGHT - 32}>{names.v}</text>
+          <text x={8} y={HEIGHT - 20}>n</text>
         </g>
       </svg>
       <ul className="mt-1 text-xs">
