@@ -1,0 +1,127 @@
+// The PDF finding record: the finding, its containment, the corrective action
+// (root cause, plan), the evidence with hashes, verification, the closure
+// signature and the record's trail.
+import type { EvidenceList, ExportEnvelope, FindingExport } from '../services/record-export.service';
+import { CAUTION_TEXT, createReportDocument, fields, finishReport, heading, mono, paragraph, signatureBlock, small, subheading, title, utc, type Doc } from './pdf-document';
+import { formatValues } from './format-values';
+import { ruleLabel } from './audit-report.pdf';
+
+const size = (bytes: number) => (bytes >= 1_048_576 ? `${(bytes / 1_048_576).toFixed(1)} MB` : bytes >= 1024 ? `${Math.round(bytes / 1024)} kB` : `${bytes} B`);
+
+function evidence(doc: Doc, label: string, list: EvidenceList | null) {
+  subheading(doc, label);
+  if (!list) return paragraph(doc, 'None.');
+  if (!list.shown) return paragraph(doc, 'Not shown: your role may not see this evidence.');
+  if (list.items.length === 0) return paragraph(doc, 'No files.');
+  for (const item of list.items) {
+    paragraph(doc, `${item.fileName} (${item.mediaType}, ${size(item.sizeBytes)})`, { size: 9.5 });
+    small(doc, `Uploaded by ${item.uploadedBy.displayName} at ${utc(item.uploadedAt)}${item.superseded ? ` · superseded ${utc(item.superseded.at)}: ${item.superseded.reason}` : ''}`);
+    mono(doc, `SHA-256 ${item.sha256}`);
+  }
+}
+
+function changesText(changes: unknown): string {
+  if (!changes || typeof changes !== 'object') return '';
+  const text = Object.entries(changes as Record<string, unknown>)
+    .map(([key, value]) => {
+      if (value && typeof value === 'object' && 'after' in (value as object)) {
+        const { before, after } = value as { before: unknown; after: unknown };
+        return `${key}: ${JSON.stringify(before)} → ${JSON.stringify(after)}`;
+      }
+      return `${key}: ${JSON.stringify(value)}`;
+    })
+    .join('; ');
+  return text.length > 600 ? `${text.slice(0, 600)}…` : text;
+}
+
+export async function renderFindingRecord(exported: ExportEnvelope<FindingExport>, generatedAt: Date): Promise<Buffer> {
+  const { record: finding, action, evidence: files, trail } = exported.content;
+  const doc = createReportDocument({ title: `Finding record ${finding.number}`, subject: finding.title });
+  title(doc, `Finding record ${finding.number}`, finding.title);
+
+  heading(doc, 'Finding');
+  fields(doc, [
+    ['State', finding.state],
+    ['Class', finding.class ?? 'not yet classified'],
+    ['Area', finding.areaName],
+    ['Audit', finding.auditTitle ? `#${finding.auditId}: ${finding.auditTitle}` : null],
+    ['Technique', finding.techniqueCode],
+    ['Rule', ruleLabel(finding.rule)],
+    ['Raised by', `${finding.author?.displayName ?? 'unknown'} at ${utc(finding.createdAt)}`],
+    ['Corrective action due', finding.dueDate],
+  ]);
+  subheading(doc, 'Requirement');
+  paragraph(doc, finding.requirement);
+  subheading(doc, 'Objective evidence');
+  paragraph(doc, finding.objectiveEvidence);
+  const values = formatValues(finding.resultValues);
+  if (values) small(doc, `Checklist values: ${values}`);
+  if (finding.classificationNote) {
+    subheading(doc, 'Classification note');
+    paragraph(doc, finding.classificationNote);
+  }
+  if (finding.withdrawReason) {
+    subheading(doc, 'Withdrawn');
+    paragraph(doc, finding.withdrawReason);
+  }
+
+  heading(doc, 'Containment');
+  paragraph(doc, finding.containment ?? (finding.class === 'major' ? 'Not yet recorded.' : 'Not required for this class.'));
+  if (finding.containmentDueDate) small(doc, `Containment due ${finding.containmentDueDate}`);
+
+  heading(doc, 'Corrective action');
+  if (!action) paragraph(doc, 'No corrective action assigned.');
+  else {
+    fields(doc, [
+      ['Action', `${action.number}, state ${action.state}`],
+      ['Owner', action.owner?.displayName],
+      ['Due', action.dueDate],
+      ['Root-cause method', action.method],
+      ['Verified', action.verifiedAt ? utc(action.verifiedAt) : null],
+    ]);
+    subheading(doc, 'Root cause');
+    paragraph(doc, action.rootCause ?? 'Not yet submitted.');
+    subheading(doc, 'Plan');
+    paragraph(doc, action.plan.length ? action.plan.map((item, i) => `${i + 1}. ${item.description} (due ${item.dueDate})`).join('\n') : 'Not yet submitted.');
+    if (action.submissionSummary) {
+      subheading(doc, 'What was done');
+      paragraph(doc, action.submissionSummary);
+    }
+    if (action.pendingExtension) small(doc, `Extension requested to ${action.pendingExtension.dueDate}: ${action.pendingExtension.reason}`);
+  }
+
+  heading(doc, 'Evidence');
+  evidence(doc, 'Files on the finding', files.finding);
+  evidence(doc, 'Files on the corrective action', files.action);
+
+  heading(doc, 'Verification');
+  const verify = action?.signatures.filter((s) => s.event === 'VERIFY') ?? [];
+  if (verify.length === 0) paragraph(doc, 'The corrective action has not been verified.');
+  for (const signature of verify) signatureBlock(doc, signature);
+  if (finding.effectivenessNote) {
+    subheading(doc, 'Effectiveness confirmed');
+    paragraph(doc, finding.effectivenessNote);
+  }
+  if (finding.notEffectiveReason) {
+    subheading(doc, 'Found not effective');
+    paragraph(doc, finding.notEffectiveReason);
+  }
+
+  heading(doc, 'Closure');
+  const closure = finding.signatures.filter((s) => s.event === 'CLOSE');
+  if (closure.length === 0) paragraph(doc, finding.state === 'closed' ? (finding.closureNote ?? 'Closed without a signature (observation).') : 'Not closed.');
+  for (const signature of closure) signatureBlock(doc, signature);
+  if (finding.closureNote && closure.length) small(doc, `Closure note: ${finding.closureNote}`);
+
+  heading(doc, 'Trail');
+  for (const entry of trail) {
+    if (doc.y > doc.page.height - doc.page.margins.bottom - 30) doc.addPage();
+    paragraph(doc, `#${entry.seq} ${utc(entry.at)} · ${entry.recordType} ${entry.recordId} · ${entry.event} · ${entry.userName ?? 'system'}`, { size: 8.5 });
+    const changes = changesText(entry.changes);
+    if (changes) small(doc, changes);
+  }
+
+  heading(doc, 'Caution');
+  paragraph(doc, CAUTION_TEXT, { size: 9 });
+  return finishReport(doc, { recordLabel: `Finding record ${finding.number}`, sha256: exported.sha256, generatedAt });
+}

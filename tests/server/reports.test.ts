@@ -1,0 +1,112 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import canonicalize from 'canonicalize';
+import { createHash } from 'node:crypto';
+import { Signature } from '../../server/models';
+import { createTestContext, TEST_PASSWORD, type TestContext } from '../helpers/test-app';
+import { expectOk, findingAwaitingSignoff, makeCast, send } from '../helpers/workflow';
+
+let context: TestContext;
+beforeAll(() => {
+  context = createTestContext();
+});
+afterAll(() => context.close());
+
+const binary = (res: request.Response, done: (error: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+};
+
+/** The PDF's text as poppler's pdftotext reads it, one string per page. */
+function pdfPages(pdf: Buffer): string[] {
+  const dir = mkdtempSync(path.join(tmpdir(), 'whorl-pdf-'));
+  const file = path.join(dir, 'report.pdf');
+  writeFileSync(file, pdf);
+  const result = spawnSync('pdftotext', ['-enc', 'UTF-8', '-layout', file, '-'], { encoding: 'utf8' });
+  if (result.status !== 0) throw new Error(`pdftotext failed: ${result.stderr}`);
+  return result.stdout.split('\f').filter((page) => page.trim().length > 0);
+}
+
+const utcMinute = (iso: string) => `${iso.slice(0, 16).replace('T', ' ')} UTC`;
+
+describe('reports and exports', () => {
+  it('when a finding is closed and its audit issued, then the PDFs carry the signatures, δ values, page numbers and the record hash on every page', async () => {
+    const cast = await makeCast(context);
+    const { audit, finding, action } = await findingAwaitingSignoff(cast);
+    await expectOk(await send(cast.accountable, 'findings', finding.id, { type: 'CLOSE', password: TEST_PASSWORD }));
+    await expectOk(await send(cast.auditor, 'audits', audit.id, { type: 'FINISH_FIELDWORK' }));
+    await expectOk(await send(cast.quality, 'audits', audit.id, { type: 'ISSUE', password: TEST_PASSWORD }));
+
+    // Role rule: a technician may not export; signed out is 401; an unknown record is 404.
+    expect((await request(context.app).get(`/api/audits/${audit.id}/report.pdf`)).status).toBe(401);
+    expect((await cast.technician.agent.get(`/api/audits/${audit.id}/report.pdf`)).status).toBe(403);
+    expect((await cast.technician.agent.get(`/api/findings/${finding.id}/export.json`)).status).toBe(403);
+    expect((await cast.quality.agent.get('/api/audits/99999999/report.pdf')).status).toBe(404);
+    expect((await cast.quality.agent.get('/api/audits/abc/report.pdf')).status).toBe(400);
+
+    // The audit report.
+    const auditPdf = await cast.quality.agent.get(`/api/audits/${audit.id}/report.pdf`).buffer(true).parse(binary);
+    expect(auditPdf.status).toBe(200);
+    expect(auditPdf.headers['content-type']).toBe('application/pdf');
+    const auditJson = await cast.quality.agent.get(`/api/audits/${audit.id}/export.json`);
+    expect(auditJson.status).toBe(200);
+    const auditHash: string = auditJson.body.sha256;
+    expect(auditHash).toBe(createHash('sha256').update(canonicalize(auditJson.body.content)!).digest('hex'));
+    const issue = await Signature.findOne({ where: { recordType: 'audit', recordId: audit.id, event: 'ISSUE' } });
+    expect(issue).not.toBeNull();
+    const auditPages = pdfPages(auditPdf.body as Buffer);
+    expect(auditPages.length).toBeGreaterThan(1);
+    auditPages.forEach((page, index) => {
+      expect(page).toContain(`Page ${index + 1} of ${auditPages.length}`);
+      expect(page).toContain(`Record SHA-256 ${auditHash}`);
+      expect(page).toContain('certified ET Level 3');
+    });
+    const auditText = auditPages.join('\n');
+    expect(auditText).toContain(`Signed by ${issue!.printedName}`);
+    expect(auditText).toContain(`Meaning: ${issue!.meaning}`);
+    expect(auditText).toContain(`Date and time: ${utcMinute(issue!.signedAt.toISOString())}`);
+    // The bobbin technique at 40 kHz and 160 kHz in 70/30 brass (28 %IACS): δ from 660.9/√(f·μr·%IACS) (DOMAIN.md) = 0.624 mm and 0.312 mm.
+    expect(auditText).toMatch(/at 40 kHz: δ = 0\.62\d* mm, 3δ = 1\.87\d* mm/);
+    expect(auditText).toMatch(/at 160 kHz: δ = 0\.31\d* mm/);
+    expect(auditText).toContain('σ = 16.24 MS/m');
+    expect(auditText).toContain(finding.number);
+    expect(auditText).toContain('TAC-ET-023');
+
+    // The finding record.
+    const findingPdf = await cast.quality.agent.get(`/api/findings/${finding.id}/record.pdf`).buffer(true).parse(binary);
+    expect(findingPdf.status).toBe(200);
+    const findingJson = await cast.quality.agent.get(`/api/findings/${finding.id}/export.json`);
+    const findingHash: string = findingJson.body.sha256;
+    const findingPages = pdfPages(findingPdf.body as Buffer);
+    findingPages.forEach((page, index) => {
+      expect(page).toContain(`Page ${index + 1} of ${findingPages.length}`);
+      expect(page).toContain(`Record SHA-256 ${findingHash}`);
+    });
+    const findingText = findingPages.join('\n');
+    const closure = await Signature.findOne({ where: { recordType: 'finding', recordId: finding.id, event: 'CLOSE' } });
+    const verify = await Signature.findOne({ where: { recordType: 'action', recordId: action.id, event: 'VERIFY' } });
+    expect(findingText).toContain(`Signed by ${closure!.printedName}`);
+    expect(findingText).toContain(`Meaning: ${closure!.meaning}`);
+    expect(findingText).toContain(`Date and time: ${utcMinute(closure!.signedAt.toISOString())}`);
+    expect(findingText).toContain(`Signed by ${verify!.printedName}`);
+    expect(findingText).toContain('The technique was written for axial cracks only');
+    expect(findingText).toContain('Tubes re-inspected with a rotating probe');
+    expect(findingText).toContain('CLOSE');
+
+    // The JSON export carries the trail of the finding and its action, and the hash covers the content.
+    const events = findingJson.body.content.trail.map((entry: { event: string }) => entry.event);
+    expect(events).toEqual(expect.arrayContaining(['SUBMIT', 'CLASSIFY', 'CLOSE', 'VERIFY']));
+    expect(findingJson.body.content.record).not.toHaveProperty('allowedEvents');
+    expect(findingJson.body.content.action.rootCause).toBe('The technique was written for axial cracks only');
+    expect(findingJson.body.content.evidence.action.items.length).toBe(1);
+    expect(findingHash).toBe(createHash('sha256').update(canonicalize(findingJson.body.content)!).digest('hex'));
+    // The hash is the record's, not the viewer's: the accountable manager gets the same one.
+    const again = await cast.accountable.agent.get(`/api/findings/${finding.id}/export.json`);
+    expect(again.body.sha256).toBe(findingHash);
+  });
+});
