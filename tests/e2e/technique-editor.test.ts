@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { inject } from 'vitest';
 import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { DEMO_TECHNIQUE_NOTES } from '../../shared/domain/demo-techniques';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -114,6 +115,18 @@ describe('technique editor', () => {
     await page.getByRole('link', { name: 'TAC-ET-023' }).waitFor({ state: 'detached' });
     await page.getByRole('link', { name: 'TAC-ET-004' }).waitFor();
     expect(await page.getByRole('link', { name: 'New technique' }).count()).toBe(0);
+
+    // The seeded register: each demo technique's revision in force carries the verdict its notes expect.
+    const listed = await page.evaluate(async () => {
+      const response = await fetch('/api/techniques?q=TAC-ET&pageSize=50');
+      return (await response.json()) as { items: { code: string; state: string; verdict: string; approvedRevision: string | null }[] };
+    });
+    for (const [code, note] of Object.entries(DEMO_TECHNIQUE_NOTES)) {
+      const item = listed.items.find((candidate) => candidate.code === code);
+      expect(item, code).toBeDefined();
+      if (item!.state === 'approved') expect(item!.verdict, code).toBe(note.expectedVerdict);
+    }
+    expect(listed.items.find((item) => item.code === 'TAC-ET-004')).toMatchObject({ state: 'draft', approvedRevision: 'C' });
     await page.context().close();
   });
 
