@@ -241,7 +241,9 @@ describe('reading the register', () => {
     const tube = JSON.parse(readFileSync('/work/shared/examples/heat-exchanger-bobbin.json', 'utf8'));
     const a = await createDraft(level3, exampleTechnique({ code: `${tag}-1` }));
     await createDraft(level3, { ...tube, code: `${tag}-2` });
-    const c = await createDraft(level3, exampleTechnique({ code: `${tag}-3` }));
+    const area = await makeArea();
+    const cResponse = await level3.post('/api/techniques').send({ technique: exampleTechnique({ code: `${tag}-3` }), areaId: area.id });
+    const c = { id: cResponse.body.id as number, body: cResponse.body };
     await level3.post(`/api/techniques/${a.id}/revisions/A/approve`).send({ version: a.body.revisions[0].version });
     await level3.post(`/api/techniques/${a.id}/revisions`).send({});
     await level3.post(`/api/techniques/${c.id}/revisions/A/approve`).send({ version: c.body.revisions[0].version });
@@ -262,6 +264,8 @@ describe('reading the register', () => {
     const bySate = await technician.agent.get(`/api/techniques?q=${tag}&sort=state`);
     expect(bySate.body.items.map((item: { state: string }) => item.state)).toEqual(['approved', 'draft', 'draft']);
 
+    const inArea = await technician.agent.get(`/api/techniques?areaId=${area.id}`);
+    expect(inArea.body).toMatchObject({ total: 1, items: [{ code: `${tag}-3`, areaName: area.name }] });
     const recent = await technician.agent.get(`/api/techniques?q=${tag}&sort=-updatedAt`);
     expect(recent.body.items[0].code).toBe(`${tag}-3`);
 
