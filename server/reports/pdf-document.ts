@@ -3,6 +3,7 @@
 // page number, the record's SHA-256 and the caution, and small layout helpers.
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
+import { ROLE_LABELS, type Role } from '../../shared/roles';
 
 const require = createRequire(import.meta.url);
 const FONTS = {
@@ -128,7 +129,7 @@ export function signatureBlock(doc: Doc, signature: { printedName: string; role:
   const width = doc.page.width - doc.page.margins.left - doc.page.margins.right;
   doc.rect(x, top, width, 58).lineWidth(0.8).strokeColor('#1f6f78').stroke();
   doc.font('Bold').fontSize(10).fillColor(INK).text(`Signed by ${signature.printedName}`, x + 8, top + 6, { width: width - 16 });
-  doc.font('Body').fontSize(9).text(`Role: ${signature.role} · Date and time: ${utc(signature.signedAt)}`, { width: width - 16 });
+  doc.font('Body').fontSize(9).text(`Role: ${ROLE_LABELS[signature.role as Role] ?? signature.role} · Date and time: ${utc(signature.signedAt)}`, { width: width - 16 });
   doc.text(`Meaning: ${signature.meaning}`, { width: width - 16 });
   doc.font('Mono').fontSize(7).text(`Signed content SHA-256 ${signature.contentHash}`, { width: width - 16 });
   doc.font('Body').fontSize(10);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import canonicalize from 'canonicalize';
@@ -32,6 +32,10 @@ function pdfPages(pdf: Buffer): string[] {
   return result.stdout.split('\f').filter((page) => page.trim().length > 0);
 }
 
+// Kept for a look after the run (git-ignored).
+const OUTPUT_DIR = path.resolve(import.meta.dirname, '../output');
+mkdirSync(OUTPUT_DIR, { recursive: true });
+
 const utcMinute = (iso: string) => `${iso.slice(0, 16).replace('T', ' ')} UTC`;
 
 describe('reports and exports', () => {
@@ -59,6 +63,7 @@ describe('reports and exports', () => {
     expect(auditHash).toBe(createHash('sha256').update(canonicalize(auditJson.body.content)!).digest('hex'));
     const issue = await Signature.findOne({ where: { recordType: 'audit', recordId: audit.id, event: 'ISSUE' } });
     expect(issue).not.toBeNull();
+    writeFileSync(path.join(OUTPUT_DIR, 'audit-report.pdf'), auditPdf.body as Buffer);
     const auditPages = pdfPages(auditPdf.body as Buffer);
     expect(auditPages.length).toBeGreaterThan(1);
     auditPages.forEach((page, index) => {
@@ -82,6 +87,7 @@ describe('reports and exports', () => {
     expect(findingPdf.status).toBe(200);
     const findingJson = await cast.quality.agent.get(`/api/findings/${finding.id}/export.json`);
     const findingHash: string = findingJson.body.sha256;
+    writeFileSync(path.join(OUTPUT_DIR, 'finding-record.pdf'), findingPdf.body as Buffer);
     const findingPages = pdfPages(findingPdf.body as Buffer);
     findingPages.forEach((page, index) => {
       expect(page).toContain(`Page ${index + 1} of ${findingPages.length}`);
