@@ -1,5 +1,15 @@
-import { SectionPending } from '../../components/ui/section-pending';
+import { PageHeader } from '../../components/ui/states';
+import { MailboxView } from '../../features/mailbox/components/mailbox-view';
 
 export function Component() {
-  return <SectionPending title="Mailbox" purpose="E-mail reminders caught by the local mail server." />;
+  return (
+    <div>
+      <PageHeader title="Mailbox" />
+      <p className="mb-4 max-w-3xl text-sm text-ink-soft">
+        Without a configured mail server, Whorl keeps the e-mail it sends here instead: assignments, reminders, escalations and digests, as the
+        recipients would read them.
+      </p>
+      <MailboxView />
+    </div>
+  );
 }
