@@ -2,6 +2,7 @@ import { NavLink, Navigate, useParams } from 'react-router-dom';
 import { PageHeader } from '../../components/ui/states';
 import { CertificationsTable } from '../../features/registers/components/certifications-table';
 import { EquipmentTable } from '../../features/registers/components/equipment-table';
+import { EvidencePanel } from '../../features/evidence/components/evidence-panel';
 
 const TABS = [
   { id: 'certifications', label: 'Personnel certifications' },
@@ -34,7 +35,11 @@ export function Component() {
             A person performing ET needs a valid ET Level 2 or 3 certificate and a near-vision exam within the policy period; a technique needs a
             certified ET Level 3's approval. The technique checklist reads this register.
           </p>
-          <CertificationsTable />
+          <CertificationsTable
+            evidencePanel={(certification) => (
+              <EvidencePanel recordType="certification" recordId={certification.id} recordOwnerId={certification.userId} title="Certificate and vision-exam evidence" />
+            )}
+          />
         </>
       ) : (
         <>
