@@ -2,7 +2,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { PageHeader, ErrorNotice, Loading } from '../../components/ui/states';
 import { Button } from '../../components/ui/button';
 import { useDashboard, useDashboardAreas, type DashboardFilters } from '../../features/dashboard/api/dashboard';
-import { DashboardCharts } from '../../features/dashboard/components/dashboard-charts';
+import { DashboardCharts, OPEN_FINDING_STATES } from '../../features/dashboard/components/dashboard-charts';
 
 const fieldClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
 
@@ -62,7 +62,7 @@ export function Component() {
         <>
           <dl className="mb-4 grid grid-cols-2 gap-3 md:grid-cols-4">
             {[
-              { label: 'Open findings', value: data.totals.openFindings, to: `/findings?state=open${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}` },
+              { label: 'Open findings', value: data.totals.openFindings, to: `/findings?state=${OPEN_FINDING_STATES}${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}` },
               { label: 'Overdue actions', value: data.totals.overdueActions, to: `/actions?overdue=true${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}`, alarm: data.totals.overdueActions > 0 },
               { label: 'Findings closed', value: data.totals.closedFindings, to: `/findings?state=closed${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}` },
               { label: 'Checklist runs', value: data.totals.checklistRuns, to: '/audits' },

@@ -3,7 +3,12 @@
 import { Link, useNavigate } from 'react-router-dom';
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { AGE_BANDS, type DashboardView } from '../../../../shared/schemas/dashboard';
+import { FINDING_STATES } from '../../../../machines';
 import { ChartCard, NumberTable } from './chart-card';
+
+/** The list pages filter by a comma-separated state list: "open" is every state but closed and withdrawn. */
+export const OPEN_FINDING_STATES = FINDING_STATES.filter((state) => state !== 'closed' && state !== 'withdrawn').join(',');
+const stateParam = (state: string) => (state === 'open' ? OPEN_FINDING_STATES : state);
 
 // Theme colours (src/styles.css): a sequence from light to dark for ageing, pass/warn/fail for outcomes.
 const COLOURS = {
@@ -41,7 +46,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
     return row;
   });
   // Findings without a class are raised or in review: the list of open findings, unfiltered by class.
-  const openFindingsUrl = (cls: string) => listUrl('/findings', { state: 'open', class: cls === 'unclassified' ? undefined : cls, areaId });
+  const openFindingsUrl = (cls: string) => listUrl('/findings', { state: OPEN_FINDING_STATES, class: cls === 'unclassified' ? undefined : cls, areaId });
 
   // ---- actions by month
   const actionsUrl = (overdue: boolean) => listUrl('/actions', { overdue: overdue ? 'true' : undefined, areaId });
@@ -249,7 +254,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
                   fill={fill}
                   isAnimationActive={animate}
                   cursor="pointer"
-                  onClick={(entry) => navigate(listUrl('/findings', { state, areaId: (entry as { payload?: { areaId?: number } }).payload?.areaId }))}
+                  onClick={(entry) => navigate(listUrl('/findings', { state: stateParam(state), areaId: (entry as { payload?: { areaId?: number } }).payload?.areaId }))}
                 />
               ))}
             </BarChart>
