@@ -96,6 +96,9 @@ describe('technique editor', () => {
     await auditor.goto(techniqueUrl);
     await auditor.getByRole('heading', { name: 'Checklist, revision A' }).waitFor();
     expect(await verdictOf(auditor)).toBe('conforms');
+    const timeline = auditor.getByRole('region', { name: 'Timeline' });
+    await timeline.getByText('Draft edited').first().waitFor();
+    expect(await timeline.textContent()).toMatch(/Created.*Draft edited.*Approved revision A/s);
     expect(await auditor.getByText('Caution:').count()).toBeGreaterThan(0);
     expect(await auditor.getByRole('button', { name: /Approve/ }).count()).toBe(0);
     expect(await auditor.getByRole('button', { name: 'Start a new revision' }).count()).toBe(0);

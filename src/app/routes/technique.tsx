@@ -11,6 +11,7 @@ import { TechniqueSummary } from '../../features/techniques/components/technique
 import { TechniqueAnalysis } from '../../features/techniques/components/technique-analysis';
 import { ApproveButton } from '../../features/techniques/components/approve-button';
 import { downloadTechniqueFile, techniqueFileName } from '../../features/techniques/components/technique-file';
+import { TechniqueTimeline } from '../../features/techniques/components/technique-timeline';
 
 export function Component() {
   const id = Number(useParams().id);
@@ -63,7 +64,10 @@ export function Component() {
       </div>
       <RevisionHistory revisions={view.revisions} selected={revision.revision} onSelect={(next) => setParams({ revision: next }, { replace: true })} />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-        <TechniqueSummary technique={revision.content} />
+        <div className="flex min-w-0 flex-col gap-4">
+          <TechniqueSummary technique={revision.content} />
+          <TechniqueTimeline id={view.id} />
+        </div>
         <div className="min-w-0">
           {checklist.isLoading && <Loading what="Evaluating the checklist" />}
           {checklist.error ? <ErrorNotice error={checklist.error} title="The checklist could not be evaluated" /> : null}

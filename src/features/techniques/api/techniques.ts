@@ -10,6 +10,7 @@ import type {
   TechniqueView,
 } from '../../../../shared/schemas/technique-register';
 import type { AreaView } from '../../../../shared/schemas/area';
+import type { TrailEntryView } from '../../../../shared/schemas/trail';
 
 export const techniquesQueryKey = ['techniques'] as const;
 
@@ -81,3 +82,11 @@ export function useStartNewRevision(id: number) {
   const done = useInvalidateTechniques();
   return useMutation({ mutationFn: () => api.post<TechniqueView>(`/techniques/${id}/revisions`, {}), onSuccess: done });
 }
+
+/** The technique's timeline: its trail entries (creation, edits, approvals), oldest first. */
+export const getTechniqueTrailQueryOptions = (id: number) =>
+  queryOptions({
+    queryKey: [...techniquesQueryKey, 'trail', id],
+    queryFn: () => api.get<ListResponse<TrailEntryView>>('/trail', { record: `technique:${id}` }),
+  });
+export const useTechniqueTrail = (id: number) => useQuery(getTechniqueTrailQueryOptions(id));
