@@ -10,6 +10,7 @@ import { certificationRoutes } from './certifications.routes';
 import { equipmentRoutes } from './equipment.routes';
 import { dashboardRoutes } from './dashboard.routes';
 import { reportRoutes } from './reports.routes';
+import { listExportRoutes } from './list-exports.routes';
 import { techniqueRoutes } from './techniques.routes';
 import { policyRoutes } from './policy.routes';
 import { materialRoutes } from './materials.routes';
@@ -20,4 +21,4 @@ import { homeRoutes } from './home.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes];
