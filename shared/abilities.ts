@@ -90,6 +90,8 @@ function auditorRules({ can }: Builder, user: AbilityUser) {
   can(['CONFIRM_EFFECTIVE', 'NOT_EFFECTIVE'], 'Finding');
   can(['VERIFY', 'RETURN'], 'CorrectiveAction');
   can('create', 'Evidence');
+  // Auditors hand out audit reports and finding records (PDF, JSON).
+  can('export', ['Audit', 'Finding', 'CorrectiveAction']);
 }
 
 function qualityManagerRules({ can }: Builder) {

@@ -51,6 +51,8 @@ describe('reports and exports', () => {
     expect((await cast.technician.agent.get(`/api/audits/${audit.id}/report.pdf`)).status).toBe(403);
     expect((await cast.technician.agent.get(`/api/findings/${finding.id}/export.json`)).status).toBe(403);
     expect((await cast.quality.agent.get('/api/audits/99999999/report.pdf')).status).toBe(404);
+    // Auditors, quality and accountable managers may export; the auditor's copy is the same record.
+    expect((await cast.auditor.agent.get(`/api/findings/${finding.id}/record.pdf`)).status).toBe(200);
     expect((await cast.quality.agent.get('/api/audits/abc/report.pdf')).status).toBe(400);
 
     // The audit report.
