@@ -1,0 +1,119 @@
+// Evidence upload with its progress and hash, and the admin mailbox showing a
+// reminder. The reminder comes from the scheduler running in this test process
+// against the e2e database, as a second app server would run it: the server
+// under test then sends it from the outbox to its local SMTP fake.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createHash } from 'node:crypto';
+import { Sequelize } from 'sequelize';
+import PDFDocument from 'pdfkit';
+import type { Browser } from 'playwright-core';
+import { inject } from 'vitest';
+import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { loadConfig } from '../../server/config/env';
+import { createLogger } from '../../server/lib/logger';
+import { initModels } from '../../server/models';
+import { createScheduler } from '../../server/jobs';
+import { remindersJob } from '../../server/jobs/reminders.job';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+function makePdf(text: string): Promise<Buffer> {
+  return new Promise((resolve) => {
+    const doc = new PDFDocument();
+    const chunks: Buffer[] = [];
+    doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.text(text);
+    doc.end();
+  });
+}
+
+describe('evidence and mail in the browser', () => {
+  it('when the quality manager uploads a certificate scan, then the progress bar fills and the stored hash shows; an executable is refused with the reason', async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInAs(page, 'quality@tarnbrook.example');
+    await page.getByRole('heading', { level: 1 }).waitFor();
+    await page.goto(`${inject('baseUrl')}/registers/certifications`);
+    await page.getByRole('button', { name: /^Open / }).first().click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByRole('heading', { name: 'Certificate and vision-exam evidence' }).waitFor();
+
+    const pdf = await makePdf(`Near-vision exam record, Jaeger J1 at 30 cm, ${Date.now()}`);
+    const hash = createHash('sha256').update(pdf).digest('hex');
+    await dialog.getByLabel('Evidence files to upload').setInputFiles([
+      { name: 'vision-exam.pdf', mimeType: 'application/pdf', buffer: pdf },
+      { name: 'setup.pdf', mimeType: 'application/pdf', buffer: Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0]), Buffer.alloc(200)]) },
+    ]);
+    const uploads = dialog.getByRole('list', { name: 'Uploads' });
+    await uploads.getByText(`Stored · SHA-256 ${hash.slice(0, 12)}`).waitFor();
+    expect(await uploads.getByRole('progressbar', { name: 'Upload of vision-exam.pdf' }).getAttribute('aria-valuenow')).toBe('100');
+    const refusal = uploads.getByRole('alert');
+    await refusal.waitFor();
+    expect(await refusal.textContent()).toContain('setup.pdf');
+    expect(await refusal.textContent()).toContain('not accepted');
+
+    const row = dialog.locator('tr', { hasText: 'vision-exam.pdf' });
+    await row.waitFor();
+    expect(await row.getByTestId('evidence-hash').textContent()).toBe(hash.slice(0, 12));
+    expect(await row.getByTestId('evidence-hash').getAttribute('title')).toBe(hash);
+    await page.screenshot({ path: screenshotPath('evidence-upload'), fullPage: true });
+    await context.close();
+  });
+
+  it('when the reminder job has run, then admin@ sees the overdue reminder in the mailbox with its link', async () => {
+    const socketPath = inject('e2eDatabaseSocket');
+    const sequelize = new Sequelize('whorl_e2e', 'root', '', {
+      dialect: 'mariadb',
+      dialectOptions: { socketPath },
+      logging: false,
+      timezone: '+00:00',
+      define: { underscored: true },
+    });
+    try {
+      initModels(sequelize);
+      const config = loadConfig({
+        NODE_ENV: 'test',
+        DATABASE_URL: 'mariadb://unused@127.0.0.1/unused',
+        SESSION_SECRET: 'e2e-second-server-secret-long-enough',
+        PUBLIC_URL: inject('baseUrl'),
+        LOG_LEVEL: 'silent',
+      });
+      const scheduler = createScheduler({ config, sequelize, logger: createLogger('silent'), clock: { now: () => new Date() } }, [remindersJob]);
+      await sequelize.query(`UPDATE scheduled_jobs SET next_run_at = '2000-01-01' WHERE name = 'reminders'`);
+      await scheduler.tick();
+    } finally {
+      await sequelize.close();
+    }
+
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInAs(page, 'admin@tarnbrook.example');
+    await page.getByRole('heading', { level: 1 }).waitFor();
+    const messages = page.getByRole('list', { name: 'Caught messages' });
+    // The server's sender polls its outbox every few seconds.
+    const deadline = Date.now() + 30_000;
+    for (;;) {
+      await page.goto(`${inject('baseUrl')}/mailbox?q=${encodeURIComponent('overdue by')}`);
+      await page.getByRole('heading', { name: 'Mailbox' }).waitFor();
+      if (await messages.getByRole('button', { name: /is overdue by/ }).first().isVisible().catch(() => false)) break;
+      if (Date.now() > deadline) throw new Error('no overdue reminder reached the mailbox');
+      await page.waitForTimeout(1_000);
+    }
+    await messages.getByRole('button', { name: /is overdue by/ }).first().click();
+    const article = page.getByRole('article');
+    await article.getByRole('heading', { name: /is overdue by/ }).waitFor();
+    const body = await article.locator('pre').textContent();
+    expect(body).toMatch(/Hello .+,/);
+    expect(body).toContain(`${inject('baseUrl')}/actions/`);
+    expect(await article.textContent()).toMatch(/<outbox-\d+@whorl\.local>/);
+    await page.screenshot({ path: screenshotPath('mailbox-reminder'), fullPage: true });
+    await context.close();
+  });
+});
