@@ -1,5 +1,11 @@
-import { SectionPending } from '../../components/ui/section-pending';
+import { PageHeader } from '../../components/ui/states';
+import { ActionsTable } from '../../features/workflow/components/workflow-tables';
 
 export function Component() {
-  return <SectionPending title="Corrective actions" purpose="Root cause, plan, implementation, evidence and verification of each corrective action." />;
+  return (
+    <div>
+      <PageHeader title="Corrective actions" />
+      <ActionsTable />
+    </div>
+  );
 }

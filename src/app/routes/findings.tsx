@@ -1,5 +1,11 @@
-import { SectionPending } from '../../components/ui/section-pending';
+import { PageHeader } from '../../components/ui/states';
+import { FindingsTable } from '../../features/workflow/components/workflow-tables';
 
 export function Component() {
-  return <SectionPending title="Findings" purpose="Nonconformities raised by audits: review, classification, containment, effectiveness and closure." />;
+  return (
+    <div>
+      <PageHeader title="Findings" />
+      <FindingsTable />
+    </div>
+  );
 }

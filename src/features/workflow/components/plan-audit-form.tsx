@@ -1,0 +1,62 @@
+import { useState, type FormEvent } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { Button } from '../../../components/ui/button';
+import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { ErrorNotice } from '../../../components/ui/states';
+import { ApiError } from '../../../lib/api-client';
+import { useAreaOptions, useCreateAudit, useTechniqueOptions } from '../api/workflow';
+
+/** Plans an audit led by the signed-in auditor: area, dates, criteria and the techniques in scope. */
+export function PlanAuditForm({ leadAuditorId, leadAreaId, onCancel }: { leadAuditorId: number; leadAreaId: number | null; onCancel(): void }) {
+  const areas = useAreaOptions();
+  const techniques = useTechniqueOptions();
+  const create = useCreateAudit();
+  const navigate = useNavigate();
+  const [form, setForm] = useState({ title: '', criteria: '', areaId: '', plannedStart: '', plannedEnd: '' });
+  const [scope, setScope] = useState<number[]>([]);
+  const error = (path: string) => (create.error instanceof ApiError ? create.error.fieldErrors.find((d) => d.path.startsWith(path))?.message : undefined);
+  const set = (key: keyof typeof form) => (e: { target: { value: string } }) => setForm({ ...form, [key]: e.target.value });
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    create.mutate(
+      { ...form, areaId: Number(form.areaId), leadAuditorId, techniques: scope.map((techniqueId) => ({ techniqueId })) },
+      { onSuccess: (audit) => navigate(`/audits/${audit.id}`) },
+    );
+  };
+
+  return (
+    <form onSubmit={submit} className="flex flex-col gap-3">
+      <TextField label="Title" required value={form.title} onChange={set('title')} error={error('title')} />
+      <TextAreaField label="Criteria (what the audit checks against)" required rows={3} value={form.criteria} onChange={set('criteria')} error={error('criteria')} />
+      <SelectField label="Audited area" required value={form.areaId} onChange={set('areaId')} error={error('areaId')}
+        hint="You cannot audit the area you belong to.">
+        <option value="">Choose an area</option>
+        {(areas.data?.items ?? []).filter((area) => area.id !== leadAreaId).map((area) => (
+          <option key={area.id} value={area.id}>{area.name}</option>
+        ))}
+      </SelectField>
+      <div className="grid grid-cols-2 gap-3">
+        <TextField label="Planned start" type="date" required value={form.plannedStart} onChange={set('plannedStart')} error={error('plannedStart')} />
+        <TextField label="Planned end" type="date" required value={form.plannedEnd} onChange={set('plannedEnd')} error={error('plannedEnd')} />
+      </div>
+      <fieldset className="flex max-h-48 flex-col gap-1 overflow-y-auto rounded border border-ink/15 p-2">
+        <legend className="px-1 text-sm font-bold">Techniques in scope</legend>
+        {(techniques.data?.items ?? []).map((technique) => (
+          <label key={technique.id} className="flex items-center gap-2 text-sm">
+            <input type="checkbox" checked={scope.includes(technique.id)}
+              onChange={(e) => setScope(e.target.checked ? [...scope, technique.id] : scope.filter((id) => id !== technique.id))} />
+            {technique.code} rev {technique.revision} — {technique.title}
+          </label>
+        ))}
+        {techniques.data && !techniques.data.items.length && <p className="text-sm text-ink-soft">The technique register is empty.</p>}
+        {error('techniques') && <p className="text-xs font-bold text-fail">{error('techniques')}</p>}
+      </fieldset>
+      {create.error ? <ErrorNotice error={create.error} title="The audit was not planned" /> : null}
+      <div className="flex justify-end gap-2">
+        <Button variant="secondary" onClick={onCancel}>Cancel</Button>
+        <Button type="submit" disabled={create.isPending || !scope.length}>{create.isPending ? 'Planning…' : 'Plan the audit'}</Button>
+      </div>
+    </form>
+  );
+}

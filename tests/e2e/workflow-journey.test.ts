@@ -1,0 +1,152 @@
+// The audit → finding → corrective action journey clicked through in Chromium
+// by the demo people, each in their own browser context.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { inject } from 'vitest';
+import { DEMO_PASSWORD, launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+
+let browser: Browser;
+const contexts: BrowserContext[] = [];
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  for (const context of contexts) await context.close().catch(() => undefined);
+  await browser?.close();
+});
+
+async function as(email: string): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  contexts.push(context);
+  const page = await context.newPage();
+  await signInAs(page, email);
+  await page.getByRole('heading', { level: 1 }).waitFor();
+  return page;
+}
+
+const isoDay = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
+
+async function sendEvent(page: Page, button: string, fill?: (dialog: ReturnType<Page['getByRole']>) => Promise<void>, confirm = button) {
+  await page.getByRole('group', { name: 'Actions' }).getByRole('button', { name: button, exact: false }).click();
+  const dialog = page.getByRole('dialog');
+  await dialog.waitFor();
+  if (fill) await fill(dialog);
+  await dialog.getByRole('button', { name: confirm, exact: false }).last().click();
+  await dialog.waitFor({ state: 'hidden' });
+}
+
+describe('the workflow journey in the browser', () => {
+  it('when auditor, quality manager, Level 3 and accountable manager each do their step, then the finding closes with its signature shown', async () => {
+    // The auditor plans an audit of Receiving Inspection with the bobbin technique and starts fieldwork.
+    const auditor = await as('auditor@tarnbrook.example');
+    await auditor.goto(`${inject('baseUrl')}/audits`);
+    await auditor.getByRole('button', { name: 'Plan an audit' }).click();
+    const plan = auditor.getByRole('dialog');
+    await plan.getByLabel('Title').fill('Browser journey: heat-exchanger tubes');
+    await plan.getByLabel('Criteria (what the audit checks against)').fill('Company ET procedure QP-ET-01');
+    await plan.getByLabel('Audited area').selectOption({ label: 'Receiving Inspection' });
+    await plan.getByLabel('Planned start').fill(isoDay(0));
+    await plan.getByLabel('Planned end').fill(isoDay(7));
+    await plan.getByLabel(/TAC-ET-023/).check();
+    await plan.getByRole('button', { name: 'Plan the audit' }).click();
+    await auditor.getByRole('heading', { name: 'Browser journey: heat-exchanger tubes' }).waitFor();
+    await sendEvent(auditor, 'Start fieldwork');
+
+    // Run the checklist and raise a finding from the orientation failure in one step.
+    await auditor.getByRole('button', { name: 'Run the checklist' }).click();
+    const failed = auditor.locator('li[data-status="fail"]', { hasText: 'orientation-coverage' });
+    await failed.waitFor();
+    expect(await failed.textContent()).toContain('circ-crack');
+    await failed.getByRole('button', { name: 'Raise a finding' }).click();
+    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-023: orientation-coverage/ }).waitFor();
+    const findingUrl = auditor.url();
+    await sendEvent(auditor, 'Submit');
+    await auditor.getByText('In review', { exact: true }).first().waitFor();
+
+    // The quality manager classifies it major, records containment and assigns the action to the Level 3.
+    const quality = await as('quality@tarnbrook.example');
+    await quality.goto(findingUrl);
+    await sendEvent(quality, 'Classify', async (dialog) => {
+      await dialog.getByLabel('Class').selectOption('major');
+    });
+    await sendEvent(quality, 'Record containment', async (dialog) => {
+      await dialog.getByLabel('What was done at once').fill('Technique suspended; bundle quarantined');
+    });
+    await quality.getByRole('button', { name: 'Assign corrective action' }).click();
+    const assign = quality.getByRole('dialog');
+    await assign.getByLabel('Owner').selectOption({ label: 'Sunniva Brack (Wheel and Brake Shop)' });
+    await assign.getByRole('button', { name: 'Assign the corrective action' }).click();
+    await assign.waitFor({ state: 'hidden' });
+    await quality.getByRole('link', { name: /^CA-\d{4}-\d{4}$/ }).click();
+    await quality.getByRole('heading', { name: /^CA-\d{4}-\d{4} for F-/ }).waitFor();
+    const actionUrl = quality.url();
+    const actionId = Number(new URL(actionUrl).pathname.split('/').pop());
+
+    // The Level 3 investigates and plans; the quality manager approves the plan.
+    const owner = await as('level3@tarnbrook.example');
+    await owner.goto(actionUrl);
+    await sendEvent(owner, 'Start investigation');
+    await sendEvent(owner, 'Submit root cause and plan', async (dialog) => {
+      await dialog.getByLabel('Root-cause analysis').fill('The technique named a bobbin coil only; its current never crosses a circumferential crack');
+      await dialog.getByLabel('Item 1', { exact: true }).fill('Add a rotating-probe pass');
+      await dialog.getByLabel('Due', { exact: true }).fill(isoDay(14));
+    });
+    await quality.reload();
+    await sendEvent(quality, 'Approve plan');
+
+    // Evidence: uploaded through the real evidence API from the owner's signed-in page (the upload
+    // panel is the evidence feature's and is not mounted on this page yet).
+    await owner.reload();
+    const uploaded = await owner.evaluate(async (id) => {
+      const session = await (await fetch('/api/session')).json();
+      const form = new FormData();
+      form.append('recordType', 'action');
+      form.append('recordId', String(id));
+      form.append('file', new File(['Rev B demonstration: circumferential notch detected with the rotating probe.'], 'demonstration.txt', { type: 'text/plain' }));
+      const response = await fetch('/api/evidence', { method: 'POST', body: form, headers: { 'X-CSRF-Token': session.csrfToken } });
+      return response.status;
+    }, actionId);
+    expect(uploaded).toBe(201);
+    await owner.reload();
+    await sendEvent(owner, 'Submit', async (dialog) => {
+      await dialog.getByLabel('Summary of what was done').fill('Technique revised to rev B with a rotating-probe pass');
+    });
+
+    // The auditor verifies with their password (signed), then confirms effectiveness.
+    await auditor.goto(actionUrl);
+    await sendEvent(auditor, 'Verify', async (dialog) => {
+      expect(await dialog.textContent()).toContain('corrective action verified');
+      await dialog.getByLabel('Your password').fill(DEMO_PASSWORD);
+    }, 'Sign: Verify');
+    await auditor.getByText('Verified', { exact: true }).first().waitFor();
+    await auditor.goto(findingUrl);
+    await sendEvent(auditor, 'Confirm effective', async (dialog) => {
+      await dialog.getByLabel('How effectiveness was checked').fill('Reference tube notches in both orientations detected');
+    });
+
+    // The accountable manager closes it with their signature.
+    const accountable = await as('accountable@tarnbrook.example');
+    await accountable.goto(findingUrl);
+    await sendEvent(accountable, 'Close', async (dialog) => {
+      expect(await dialog.textContent()).toContain('closure approved');
+      await dialog.getByLabel('Your password').fill(DEMO_PASSWORD);
+    }, 'Sign: Close');
+    const signature = accountable.getByTestId('signature');
+    await signature.waitFor();
+    const text = await signature.textContent();
+    expect(text).toContain('Rafael Oduya');
+    expect(text).toContain('closure approved');
+    expect(text).toMatch(/SHA-256 [0-9a-f]{64}/);
+    await accountable.getByText('Closed', { exact: true }).first().waitFor();
+    await accountable.screenshot({ path: screenshotPath('finding-closed-with-signature'), fullPage: true });
+  });
+
+  it('when the quality manager opens the home page, then the findings waiting for review are listed with due dates', async () => {
+    const quality = await as('quality@tarnbrook.example');
+    const list = quality.getByRole('list', { name: 'Waiting on you' });
+    await list.waitFor();
+    expect(await list.getByText('Classify the finding').count()).toBeGreaterThanOrEqual(2);
+    expect(await list.getByText(/Overdue since/).count()).toBeGreaterThan(0);
+    await quality.screenshot({ path: screenshotPath('home-waiting-on-quality-manager'), fullPage: true });
+  });
+});
