@@ -27,6 +27,7 @@ export const router = createBrowserRouter([
       { path: 'techniques/new', lazy: () => import('./routes/technique-new') },
       { path: 'techniques/:id', lazy: () => import('./routes/technique') },
       { path: 'techniques/:id/edit', lazy: () => import('./routes/technique-edit') },
+      { path: 'materials', lazy: () => import('./routes/materials') },
       { path: 'audits', lazy: () => import('./routes/audits') },
       { path: 'audits/:id', lazy: () => import('./routes/audit') },
       { path: 'findings', lazy: () => import('./routes/findings') },

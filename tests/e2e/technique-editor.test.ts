@@ -133,14 +133,20 @@ describe('technique editor', () => {
     await page.context().close();
   });
 
-  it('when the admin opens the policy page, then each setting shows its default, basis and value', async () => {
+  it('when the admin opens the policy page and the materials library, then each setting shows its default, basis and value, and each material its values', async () => {
     const page = await signedInPage('admin@tarnbrook.example');
     await page.getByRole('link', { name: 'Policy' }).click();
     await page.getByRole('heading', { name: 'Policy settings' }).waitFor();
-    const row = page.locator('[data-setting="fillFactorMinEncircling"]');
-    expect(await row.textContent()).toContain('common practice, no single source');
+    const setting = page.locator('[data-setting="fillFactorMinEncircling"]');
+    expect(await setting.textContent()).toContain('common practice, no single source');
     expect(await page.getByLabel('Minimum fill factor, encircling coil').inputValue()).toBe('0.7');
     await page.screenshot({ path: screenshotPath('policy-settings'), fullPage: true });
+
+    await page.goto(`${inject('baseUrl')}/materials`);
+    const row = page.getByRole('row').filter({ hasText: 'Aluminium 2024-T3' });
+    await row.waitFor();
+    expect(await row.textContent()).toContain('17.4');
+    expect(await page.getByRole('button', { name: 'Edit Aluminium 2024-T3' }).count()).toBe(1);
     await page.context().close();
   });
 });

@@ -9,6 +9,9 @@ export function Component() {
   return (
     <div className="flex flex-col gap-4">
       <PageHeader title="Techniques">
+        <Link to="/materials" className="rounded-md border border-ink/20 bg-white px-3 py-1.5 text-sm font-bold text-ink hover:border-ink/50">
+          Materials library
+        </Link>
         {ability.can('create', 'Technique') && (
           <Link to="/techniques/new" className="rounded-md bg-ink px-3 py-1.5 text-sm font-bold text-white hover:bg-lagoon">
             New technique

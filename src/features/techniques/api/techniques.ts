@@ -90,3 +90,12 @@ export const getTechniqueTrailQueryOptions = (id: number) =>
     queryFn: () => api.get<ListResponse<TrailEntryView>>('/trail', { record: `technique:${id}` }),
   });
 export const useTechniqueTrail = (id: number) => useQuery(getTechniqueTrailQueryOptions(id));
+
+export function useSaveMaterial() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: { id?: number; version?: number; name: string; conductivityIacs: number; relativePermeability: number; source: string }) =>
+      id ? api.patch<MaterialView>(`/materials/${id}`, body) : api.post<MaterialView>('/materials', body),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['materials'] }),
+  });
+}
