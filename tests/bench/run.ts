@@ -146,9 +146,9 @@ async function main() {
       const ids = seed.findingIds;
       results.push(
         await load('Whorl: a finding\'s page (GET /api/findings/:id, random id)', {
-          url: app.url,
+          url: `${app.url}/api/findings/1`,
           headers: { cookie: quality.cookieHeader },
-          requests: [{ method: 'GET', setupRequest: (req) => ({ ...req, path: `/api/findings/${ids[Math.floor(Math.random() * ids.length)]}` }) }],
+          requests: [{ method: 'GET', path: '/api/findings/1', setupRequest: (req) => ({ ...req, path: `/api/findings/${ids[Math.floor(Math.random() * ids.length)]}` }) }],
         }),
       );
 
