@@ -1,7 +1,10 @@
 // Two app servers on one database keep no state of their own: a session made on
 // one works on the other, a CSRF token issued by one is accepted by the other,
-// signing out on one ends the session on both.
+// signing out on one ends the session on both, and with both schedulers on a
+// due reminder is delivered once.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SMTPServer } from 'smtp-server';
+import { QueryTypes } from 'sequelize';
 import { startFaultDatabase, FAULT_PASSWORD, type FaultDatabase } from './helpers/fault-database';
 import { startAppProcess, stopAllAppProcesses, type AppProcess } from './helpers/app-process';
 import { ApiClient } from './helpers/http-client';
@@ -54,6 +57,54 @@ describe('when two app servers share one database', () => {
       forged.csrfToken = 'not-the-token';
       const refused = await forged.call('POST', '/api/areas', { code: `FORGED-${server.port}`.slice(0, 16), name: `Forged ${server.port}` });
       expect(refused.status).toBe(403);
+    }
+  });
+});
+
+describe('when two app servers run their schedulers on one database with a reminder due', () => {
+  it('then the reminder is delivered once, not once per server', async () => {
+    const { makeActionRow } = await import('../helpers/evidence-owners');
+    const received: string[] = [];
+    const smtp = new SMTPServer({
+      disabledCommands: ['STARTTLS', 'AUTH'],
+      logger: false,
+      onData(stream, _session, callback) {
+        let raw = '';
+        stream.on('data', (chunk) => (raw += chunk));
+        stream.on('end', () => {
+          received.push(raw);
+          callback();
+        });
+      },
+    });
+    await new Promise<void>((resolve) => smtp.listen(0, '127.0.0.1', () => resolve()));
+    const smtpPort = (smtp.server.address() as { port: number }).port;
+    const extra: AppProcess[] = [];
+    try {
+      const quality = await database.createUser(['quality_manager'], 'quality-mail');
+      const owner = await database.createUser(['technician'], 'owner-mail');
+      const dueDate = new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 10);
+      const action = await makeActionRow(database.sequelize, { ownerId: owner.id, createdById: quality.id, dueDate });
+      const env = { SCHEDULER: 'true', SCHEDULER_INTERVAL_SECONDS: '1', SMTP_URL: `smtp://127.0.0.1:${smtpPort}` };
+      extra.push(
+        ...(await Promise.all([
+          startAppProcess({ databaseUrl: database.url, label: 'scheduler-a', env }),
+          startAppProcess({ databaseUrl: database.url, label: 'scheduler-b', env }),
+        ])),
+      );
+      const aboutAction = () => received.filter((raw) => raw.includes(action.number) && raw.includes(owner.email));
+      const deadline = Date.now() + 45_000;
+      while (aboutAction().length === 0 && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 250));
+      // Both schedulers keep ticking every second: give a duplicate every chance to appear.
+      await new Promise((resolve) => setTimeout(resolve, 8_000));
+      expect(aboutAction()).toHaveLength(1);
+      const [job] = await database.sequelize.query<{ run_count: number }>("SELECT run_count FROM scheduled_jobs WHERE name LIKE '%remind%'", {
+        type: QueryTypes.SELECT,
+      });
+      expect(Number(job.run_count)).toBe(1);
+    } finally {
+      await Promise.all(extra.map((app) => app.stop()));
+      await new Promise<void>((resolve) => smtp.close(() => resolve()));
     }
   });
 });
