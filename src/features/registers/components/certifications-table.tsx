@@ -9,7 +9,7 @@ import { useAbility } from '../../../lib/ability';
 import { useCertifications, useCreateCertification, useUpdateCertification } from '../api/certifications';
 import { CertificationForm, toCertificationInput, type CertificationFormValues } from './certification-form';
 import { CertificateBadge, VisionBadge } from './flag-badge';
-import { CsvLink } from './csv-link';
+import { CsvExportLink } from '../../../components/ui/export-links';
 
 const column = createColumnHelper<CertificationView>();
 
@@ -115,7 +115,7 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
           </label>
         </div>
         <div className="flex gap-2">
-          <CsvLink path="/certifications.csv" query={list.query} />
+          <CsvExportLink path="/certifications.csv" query={list.query} />
           {ability.can('create', 'Certification') && <Button onClick={() => setPending({ kind: 'create' })}>Record a certificate</Button>}
         </div>
       </div>

@@ -10,7 +10,7 @@ import { useAbility } from '../../../lib/ability';
 import { useCreateEquipment, useEquipment, useUpdateEquipment } from '../api/equipment';
 import { EquipmentForm, toEquipmentInput, type EquipmentFormValues } from './equipment-form';
 import { CalibrationBadge } from './flag-badge';
-import { CsvLink } from './csv-link';
+import { CsvExportLink } from '../../../components/ui/export-links';
 
 const column = createColumnHelper<EquipmentView>();
 const filterClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
@@ -126,7 +126,7 @@ export function EquipmentTable() {
           </label>
         </div>
         <div className="flex gap-2">
-          <CsvLink path="/equipment.csv" query={list.query} />
+          <CsvExportLink path="/equipment.csv" query={list.query} />
           {ability.can('create', 'Equipment') && <Button onClick={() => setPending({ kind: 'create' })}>Register equipment</Button>}
         </div>
       </div>
