@@ -19,6 +19,8 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/shared/**/*.test.ts', 'tests/machines/**/*.test.ts'],
           environment: 'node',
+          // Property tests run thousands of cases; a busy 2-core CI machine needs the headroom.
+          testTimeout: 30_000,
         },
       },
       {
@@ -55,8 +57,8 @@ export default defineConfig({
           environment: 'node',
           globalSetup: ['tests/helpers/e2e-global-setup.ts'],
           fileParallelism: false,
-          testTimeout: 60_000,
-          hookTimeout: 120_000,
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
         },
       },
     ],

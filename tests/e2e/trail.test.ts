@@ -20,7 +20,7 @@ describe('the trail page', () => {
     const status = page.getByRole('status').filter({ hasText: 'Intact' });
     await status.waitFor();
     expect(await status.textContent()).toMatch(/All [\d,]+ entries verify/);
-    await page.getByLabel('Record').fill('user:1');
+    await page.getByRole('textbox', { name: 'Record' }).fill('user:1');
     await page.getByRole('button', { name: 'Show entries' }).click();
     await page.getByText('USER_CREATED').first().waitFor();
     await page.screenshot({ path: screenshotPath('trail-verified'), fullPage: true });
