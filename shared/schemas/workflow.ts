@@ -3,10 +3,12 @@
 // types its forms and pages with the same definitions.
 import { z } from 'zod';
 import { FINDING_CLASSES, ROOT_CAUSE_METHODS } from '../../machines';
-import { IsoDateSchema, ListQueryBaseSchema } from './common';
+import { ListQueryBaseSchema } from './common';
 
 const text = (label: string, max = 4000) =>
   z.string({ error: `${label} is required` }).trim().min(1, `${label} is required`).max(max, `${label} is at most ${max} characters`);
+/** A calendar date that exists (2026-02-30 does not), written YYYY-MM-DD. */
+const IsoDateSchema = z.iso.date({ error: 'use a real calendar date like 2026-12-31' });
 const version = z.number({ error: 'version is required (the version you loaded)' }).int().min(0);
 const password = z.string({ error: 'your password is required to sign' }).min(1, 'your password is required to sign').max(1024);
 
