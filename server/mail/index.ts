@@ -26,6 +26,23 @@ export interface StartMailOptions {
   smtpPort?: number;
 }
 
+// The effects sink is process-wide; several app servers in one process (tests) share it until the last one stops.
+let sinkUsers = 0;
+let sinkBefore: EffectSink | null = null;
+
+function installSink() {
+  if (sinkUsers === 0) sinkBefore = setEffectSink(mailEffectSink);
+  sinkUsers += 1;
+}
+
+function uninstallSink() {
+  sinkUsers -= 1;
+  if (sinkUsers === 0 && sinkBefore) {
+    setEffectSink(sinkBefore);
+    sinkBefore = null;
+  }
+}
+
 export async function startMail(deps: AppDeps, options: StartMailOptions = {}): Promise<MailRuntime> {
   const { config, logger, sequelize } = deps;
   const smtp = config.mail.smtpUrl ? null : await startSmtpFake({ port: options.smtpPort ?? 0, logger });
@@ -34,7 +51,7 @@ export async function startMail(deps: AppDeps, options: StartMailOptions = {}): 
   const worker = createOutboxWorker(deps, transport);
   worker.start(options.pollMs ?? 10_000);
   registerOutboxWorker(sequelize, worker);
-  const previousSink: EffectSink = setEffectSink(mailEffectSink);
+  installSink();
   const scheduler = createScheduler(deps, SCHEDULED_JOBS, { onRan: () => worker.kick() });
   if (options.scheduler ?? config.scheduler.enabled) scheduler.start(config.scheduler.intervalSeconds);
   worker.kick();
@@ -46,7 +63,7 @@ export async function startMail(deps: AppDeps, options: StartMailOptions = {}): 
       await scheduler.stop();
       await worker.stop();
       registerOutboxWorker(sequelize, null);
-      if (previousSink !== mailEffectSink) setEffectSink(previousSink);
+      uninstallSink();
       transport.close();
       await smtp?.stop();
     },

@@ -34,11 +34,12 @@ const withPeople = [
 ];
 
 /**
- * Current (not superseded) evidence files of a record, counted inside the
- * caller's transaction: the corrective action's SUBMIT sets facts.evidenceCount from this.
+ * Current evidence files of a record (not superseded, bytes in storage),
+ * counted inside the caller's transaction: the corrective action's SUBMIT
+ * sets facts.evidenceCount from this.
  */
 export async function countEvidence(recordType: EvidenceRecordType, recordId: number, transaction?: Transaction): Promise<number> {
-  return EvidenceFile.count({ where: { recordType, recordId, supersededAt: null }, transaction });
+  return EvidenceFile.count({ where: { recordType, recordId, supersededAt: null, storedAt: { [Op.ne]: null } }, transaction });
 }
 
 function ownerSubject(owner: EvidenceOwnerRecord, uploadedById?: number) {

@@ -95,7 +95,7 @@ export function MailboxView() {
               ))}
             </ul>
             <div className="flex items-center justify-between text-xs text-ink-soft">
-              <span>{mailbox.data?.total} messages · page {list.page} of {pages}</span>
+              <span>{mailbox.data?.total} {mailbox.data?.total === 1 ? "message" : "messages"} · page {list.page} of {pages}</span>
               <div className="flex gap-1">
                 <Button variant="secondary" disabled={list.page <= 1} onClick={() => list.update({ page: list.page - 1 }, { resetPage: false })}>‹ Newer</Button>
                 <Button variant="secondary" disabled={list.page >= pages} onClick={() => list.update({ page: list.page + 1 }, { resetPage: false })}>Older ›</Button>
