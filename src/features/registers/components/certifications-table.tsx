@@ -9,7 +9,7 @@ import { useAbility } from '../../../lib/ability';
 import { useCertifications, useCreateCertification, useUpdateCertification } from '../api/certifications';
 import { CertificationForm, toCertificationInput, type CertificationFormValues } from './certification-form';
 import { CertificateBadge, VisionBadge } from './flag-badge';
-import { CsvExportLink } from '../../../components/ui/export-links';
+import { CsvExportLink, RecordExportLinks } from '../../../components/ui/export-links';
 
 const column = createColumnHelper<CertificationView>();
 
@@ -146,6 +146,9 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
             <p className="text-sm">Certificate {pending.certification.certificateNumber}, expires {pending.certification.expiresOn}.</p>
           )}
           {evidencePanel && <div className="mt-4 border-t border-ink/10 pt-3">{evidencePanel(pending.certification)}</div>}
+          <div className="mt-3">
+            <RecordExportLinks kind="certification" id={pending.certification.id} />
+          </div>
         </Dialog>
       )}
     </div>

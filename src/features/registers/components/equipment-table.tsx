@@ -10,7 +10,7 @@ import { useAbility } from '../../../lib/ability';
 import { useCreateEquipment, useEquipment, useUpdateEquipment } from '../api/equipment';
 import { EquipmentForm, toEquipmentInput, type EquipmentFormValues } from './equipment-form';
 import { CalibrationBadge } from './flag-badge';
-import { CsvExportLink } from '../../../components/ui/export-links';
+import { CsvExportLink, RecordExportLinks } from '../../../components/ui/export-links';
 
 const column = createColumnHelper<EquipmentView>();
 const filterClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
@@ -161,6 +161,9 @@ export function EquipmentTable() {
             }
             onCancel={close}
           />
+          <div className="mt-3">
+            <RecordExportLinks kind="equipment" id={pending.item.id} />
+          </div>
         </Dialog>
       )}
       {pending?.kind === 'edit' && pending.confirm && pending.values && (
