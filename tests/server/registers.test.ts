@@ -274,3 +274,36 @@ describe('register facts for a technique', () => {
     ]);
   });
 });
+
+describe('certification reminders', () => {
+  it('when a certificate nears expiry and a vision exam lapses, then one candidate per threshold is offered, with stable dedupe keys', async () => {
+    const { certificationReminderCandidates } = await import('../../server/services/certification-reminders');
+    const quality = await signedInAs(context, ['quality_manager']);
+    const person = await makeUser({ roles: ['technician'], displayName: 'Reminder Person' });
+    const created = await quality.post('/api/certifications').send(
+      certificationBody(person.id, { issuedOn: '2022-03-01', expiresOn: '2027-03-01', nearVisionExamOn: '2026-02-28' }),
+    );
+    const mine = async (day: string) =>
+      (await certificationReminderCandidates(context.deps, new Date(`${day}T06:00:00Z`))).filter((c) => c.certificationId === created.body.id);
+    // 61 days out, vision exam current: nothing yet.
+    expect(await mine('2026-12-30')).toEqual([]);
+    // Exactly 60 days out: the 60-day reminder, to the person and the quality managers.
+    const sixty = await mine('2026-12-31');
+    expect(sixty.map((c) => [c.kind, c.threshold, c.daysLeft])).toEqual([['certificate-expiry', 60, 60]]);
+    expect(sixty[0].recipientUserIds).toEqual(expect.arrayContaining([person.id, quality.user.id]));
+    expect(sixty[0].dedupeKey).toBe(`certification:${created.body.id}:expiry:2027-03-01:60`);
+    // 31 days out the 60-day key repeats (sent once); at 30 days a new key; vision due within 30 days from 2027-01-29.
+    expect((await mine('2027-01-29')).map((c) => c.dedupeKey)).toEqual([
+      `certification:${created.body.id}:expiry:2027-03-01:60`,
+      `certification:${created.body.id}:vision:2026-02-28:30`,
+    ]);
+    expect((await mine('2027-01-30'))[0].dedupeKey).toBe(`certification:${created.body.id}:expiry:2027-03-01:30`);
+    // After expiry and vision lapse: the lapse reminders (threshold 0).
+    const lapsed = await mine('2027-03-02');
+    expect(lapsed.map((c) => [c.kind, c.threshold])).toEqual([
+      ['certificate-expiry', 0],
+      ['vision-exam', 0],
+    ]);
+    expect(lapsed[0].text).toContain('must not perform or approve inspections');
+  });
+});
