@@ -47,7 +47,7 @@ export const AuditEventSchema = z.discriminatedUnion('type', [
 export type AuditEventInput = z.infer<typeof AuditEventSchema>;
 
 export const AuditListQuerySchema = ListQueryBaseSchema.extend({
-  state: z.string().max(32).optional(),
+  state: z.string().regex(/^[a-z_,]*$/, 'state is a state name or a comma-separated list of them').max(200).optional(),
   areaId: z.coerce.number().int().positive().optional(),
   owner: z.coerce.number().int().positive().optional(),
 }).strict();
@@ -111,7 +111,7 @@ export type FindingEventInput = z.infer<typeof FindingEventSchema>;
 const booleanQuery = z.enum(['true', 'false']).optional();
 
 export const FindingListQuerySchema = ListQueryBaseSchema.extend({
-  state: z.string().max(32).optional(),
+  state: z.string().regex(/^[a-z_,]*$/, 'state is a state name or a comma-separated list of them').max(200).optional(),
   class: z.enum(FINDING_CLASSES).optional(),
   areaId: z.coerce.number().int().positive().optional(),
   owner: z.coerce.number().int().positive().optional(),
@@ -150,7 +150,7 @@ export const ActionEventSchema = z.discriminatedUnion('type', [
 export type ActionEventInput = z.infer<typeof ActionEventSchema>;
 
 export const ActionListQuerySchema = ListQueryBaseSchema.extend({
-  state: z.string().max(32).optional(),
+  state: z.string().regex(/^[a-z_,]*$/, 'state is a state name or a comma-separated list of them').max(200).optional(),
   areaId: z.coerce.number().int().positive().optional(),
   owner: z.coerce.number().int().positive().optional(),
   overdue: booleanQuery,

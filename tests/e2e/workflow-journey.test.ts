@@ -57,6 +57,7 @@ describe('the workflow journey in the browser', () => {
     const failed = auditor.locator('li[data-status="fail"]', { hasText: 'orientation-coverage' });
     await failed.waitFor();
     expect(await failed.textContent()).toContain('circ-crack');
+    await auditor.screenshot({ path: screenshotPath('audit-checklist-run'), fullPage: true });
     await failed.getByRole('button', { name: 'Raise a finding' }).click();
     await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-023: orientation-coverage/ }).waitFor();
     const findingUrl = auditor.url();
@@ -108,6 +109,7 @@ describe('the workflow journey in the browser', () => {
     }, actionId);
     expect(uploaded).toBe(201);
     await owner.reload();
+    await owner.getByText('Evidence files').waitFor();
     await sendEvent(owner, 'Submit', async (dialog) => {
       await dialog.getByLabel('Summary of what was done').fill('Technique revised to rev B with a rotating-probe pass');
     });
@@ -119,6 +121,7 @@ describe('the workflow journey in the browser', () => {
       await dialog.getByLabel('Your password').fill(DEMO_PASSWORD);
     }, 'Sign: Verify');
     await auditor.getByText('Verified', { exact: true }).first().waitFor();
+    await auditor.screenshot({ path: screenshotPath('action-verified'), fullPage: true });
     await auditor.goto(findingUrl);
     await sendEvent(auditor, 'Confirm effective', async (dialog) => {
       await dialog.getByLabel('How effectiveness was checked').fill('Reference tube notches in both orientations detected');

@@ -63,4 +63,21 @@ describe('workflow requests: identity, input and existence', () => {
     const fromRun = await raiseFromRun(cast.auditor, audit.id, run.id, resultIndex);
     expect(Number(fromRun.number.split('-')[2])).toBe(Number(manual.body.number.split('-')[2]) + 1);
   });
+
+  it('when each list is sorted by each of its sortable fields, either way, then it answers 200', async () => {
+    const quality = await person(context, ['quality_manager']);
+    const sortable = {
+      audits: ['title', 'plannedStart', 'state', 'createdAt'],
+      findings: ['number', 'dueDate', 'state', 'class', 'createdAt', 'title'],
+      actions: ['number', 'dueDate', 'state', 'createdAt'],
+    };
+    for (const [path, fields] of Object.entries(sortable)) {
+      for (const field of fields) {
+        for (const sort of [field, `-${field}`]) {
+          const response = await quality.agent.get(`/api/${path}?sort=${sort}&state=raised,in_review,assigned,planned&q=a`);
+          expect(response.status, `${path} ${sort}`).toBe(200);
+        }
+      }
+    }
+  });
 });

@@ -5,6 +5,10 @@ import { eventLabel } from './labels';
 function describeChanges(changes: unknown): string[] {
   if (!changes || typeof changes !== 'object') return [];
   return Object.entries(changes as Record<string, unknown>).map(([key, value]) => {
+    if (key === 'signature' && value && typeof value === 'object' && 'meaning' in value) {
+      const signature = value as { meaning: string; role: string; contentHash: string };
+      return `signed “${signature.meaning}” as ${signature.role.replace(/_/g, ' ')} · SHA-256 ${signature.contentHash.slice(0, 16)}…`;
+    }
     if (value && typeof value === 'object' && 'before' in value && 'after' in value) {
       const { before, after } = value as { before: unknown; after: unknown };
       const show = (v: unknown) => (v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v));
