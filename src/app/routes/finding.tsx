@@ -1,8 +1,24 @@
 import { useParams } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
 import { FindingPage } from '../../features/workflow/components/finding-page';
+import { workflowKeys } from '../../features/workflow/api/workflow';
+import { EvidencePanel } from '../../features/evidence/components/evidence-panel';
 
-// The evidence panel mounts through FindingPage's `evidence` prop once the evidence feature provides one.
 export function Component() {
   const { id } = useParams();
-  return <FindingPage key={id} id={Number(id)} />;
+  const queryClient = useQueryClient();
+  return (
+    <FindingPage
+      key={id}
+      id={Number(id)}
+      evidence={(finding) => (
+        <EvidencePanel
+          recordType="finding"
+          recordId={finding.id}
+          recordOwnerId={finding.author?.id ?? null}
+          onChange={() => void queryClient.invalidateQueries({ queryKey: workflowKeys.all })}
+        />
+      )}
+    />
+  );
 }

@@ -21,11 +21,13 @@ export interface EvidencePanelProps {
   /** Hide the upload area (e.g. the record no longer takes evidence). */
   readOnly?: boolean;
   title?: string;
+  /** Called after a file was stored or superseded (the record page refreshes its evidence count). */
+  onChange?: () => void;
 }
 
 let uploadCounter = 0;
 
-export function EvidencePanel({ recordType, recordId, recordOwnerId = null, readOnly = false, title = 'Evidence' }: EvidencePanelProps) {
+export function EvidencePanel({ recordType, recordId, recordOwnerId = null, readOnly = false, title = 'Evidence', onChange }: EvidencePanelProps) {
   const ability = useAbility();
   const queryClient = useQueryClient();
   const evidence = useEvidence(recordType, recordId);
@@ -48,6 +50,7 @@ export function EvidencePanel({ recordType, recordId, recordOwnerId = null, read
           .then(([stored]) => {
             patch(key, { status: 'stored', progress: 1, shortHash: stored?.shortHash });
             void queryClient.invalidateQueries({ queryKey: evidenceQueryKey(recordType, recordId) });
+            onChange?.();
           })
           .catch((error: unknown) => {
             const message = error instanceof ApiError ? error.message : 'The upload failed; try again.';
@@ -55,7 +58,7 @@ export function EvidencePanel({ recordType, recordId, recordOwnerId = null, read
           });
       }
     },
-    [queryClient, recordId, recordType],
+    [queryClient, recordId, recordType, onChange],
   );
 
   const onDrop = (event: DragEvent) => {
@@ -132,7 +135,7 @@ export function EvidencePanel({ recordType, recordId, recordOwnerId = null, read
           error={supersede.error}
           onCancel={() => setSuperseding(null)}
           onConfirm={(reason) =>
-            supersede.mutate({ id: superseding.id, reason, version: superseding.version }, { onSuccess: () => setSuperseding(null) })
+            supersede.mutate({ id: superseding.id, reason, version: superseding.version }, { onSuccess: () => { setSuperseding(null); onChange?.(); } })
           }
         />
       )}
