@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { ActionDetailView } from '../../../../shared/schemas/workflow';
 import { ErrorNotice, Loading, PageHeader } from '../../../components/ui/states';
+import { RecordExportLinks } from '../../../components/ui/export-links';
 import { useAction } from '../api/workflow';
 import { EventActions } from './event-actions';
 import { Facts, Panel } from './record-layout';
@@ -36,7 +37,10 @@ export function ActionPage({ id, evidence }: { id: number; evidence?: (action: A
       <PageHeader title={`${a.number}${a.finding ? ` for ${a.finding.number}` : ''}`}>
         <StateBadge state={a.state} />
       </PageHeader>
-      <EventActions kind="action" record={a} />
+      <div className="flex flex-wrap items-start justify-between gap-2">
+        <EventActions kind="action" record={a} />
+        <RecordExportLinks kind="action" id={a.id} />
+      </div>
       {a.state === 'in_progress' && a.evidenceCount === 0 && (
         <p className="rounded-md border border-warn/40 bg-warn/10 px-3 py-2 text-sm">Attach at least one evidence file before submitting.</p>
       )}

@@ -2,6 +2,7 @@ import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Caution } from '../../../components/ui/caution';
 import { ErrorNotice, Loading, PageHeader } from '../../../components/ui/states';
+import { RecordExportLinks } from '../../../components/ui/export-links';
 import { useAudit, useRunChecklist } from '../api/workflow';
 import { ChecklistResults } from './checklist-results';
 import { EventActions } from './event-actions';
@@ -22,7 +23,10 @@ export function AuditPage({ id }: { id: number }) {
       <PageHeader title={a.title}>
         <StateBadge state={a.state} />
       </PageHeader>
-      <EventActions kind="audit" record={a} />
+      <div className="flex flex-wrap items-start justify-between gap-2">
+        <EventActions kind="audit" record={a} />
+        <RecordExportLinks kind="audit" id={a.id} />
+      </div>
       <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
         <div className="flex flex-col gap-4">
           <Panel title="Audit">

@@ -4,6 +4,7 @@ import type { FindingDetailView } from '../../../../shared/schemas/workflow';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { ErrorNotice, Loading, PageHeader } from '../../../components/ui/states';
+import { RecordExportLinks } from '../../../components/ui/export-links';
 import { useFinding } from '../api/workflow';
 import { AssignActionForm } from './assign-action-form';
 import { EventActions } from './event-actions';
@@ -32,6 +33,7 @@ export function FindingPage({ id, evidence }: { id: number; evidence?: (finding:
       <div className="flex flex-wrap gap-2">
         <EventActions kind="finding" record={f} />
         {f.canAssignAction && <Button onClick={() => setAssigning(true)}>Assign corrective action</Button>}
+        <RecordExportLinks kind="finding" id={f.id} />
       </div>
       <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
         <div className="flex flex-col gap-4">
