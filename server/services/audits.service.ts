@@ -1,6 +1,6 @@
 // Audits: plan (create), list, read, and the checklist runs of their scope.
 import { subject } from '@casl/ability';
-import { Op, type WhereOptions } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import { AUDIT_MACHINE_VERSION, auditMachine, createInitialSnapshot, persistSnapshot } from '../../machines';
 import type { AppDeps } from '../app-deps';
@@ -16,9 +16,11 @@ import type {
   ChecklistRunCreateSchema,
   ChecklistRunView,
 } from '../../shared/schemas/workflow';
-import { evaluateParsedTechnique, parseTechnique } from '../../shared/domain/checklist';
+import { evaluateParsedTechnique, parseTechnique, type ChecklistOutput } from '../../shared/domain/checklist';
+import { techniqueChecklist } from './technique-checklist.service';
+import { QueryTypes } from 'sequelize';
 import { appendTrail } from './trail.service';
-import { loadRegisterTechnique, resolveScope } from './technique-source';
+import { resolveScope } from './technique-source';
 import { loadOrganisationPolicy } from './workflow-policy';
 import { allowedEventsForUser, openFindingCounts } from './workflow/record-kinds';
 import { presentAudit, presentAuditDetail, presentChecklistRun } from '../presenters/audit.presenter';
@@ -143,6 +145,16 @@ export async function getAudit(actor: EventActor, ability: AppAbility, id: numbe
   });
 }
 
+async function revisionContent(deps: AppDeps, revisionId: number, transaction: Transaction): Promise<unknown> {
+  const [row] = await deps.sequelize.query<{ content: unknown }>('SELECT content FROM technique_revisions WHERE id = ?', {
+    replacements: [revisionId],
+    type: QueryTypes.SELECT,
+    transaction,
+  });
+  if (!row) return null;
+  return typeof row.content === 'string' ? JSON.parse(row.content) : row.content;
+}
+
 export async function runChecklist(
   deps: AppDeps,
   actor: EventActor,
@@ -159,17 +171,19 @@ export async function runChecklist(
     const item = audit.scope.find((entry) => (input.techniqueId ? entry.techniqueId === input.techniqueId : entry.code === input.techniqueCode));
     if (!item) throw invalid(input.techniqueId ? 'techniqueId' : 'techniqueCode', 'this technique is not in the audit’s scope');
     let definition = item.definition;
+    let output: ChecklistOutput | null = null;
     if (item.techniqueId) {
-      const current = await loadRegisterTechnique(deps.sequelize, item.techniqueId, transaction);
-      if (current) {
-        const content = current.content && typeof current.content === 'object' ? (current.content as Record<string, unknown>) : {};
-        const parsed = parseTechnique({ ...content, code: current.code, title: current.title, revision: current.revision });
-        if (parsed.success) definition = parsed.data;
+      // A register technique: its current revision, with the personnel and equipment register facts, as the register shows it.
+      const checklist = await techniqueChecklist(deps, item.techniqueId).catch(() => null);
+      const content = checklist ? await revisionContent(deps, checklist.revision.id, transaction) : null;
+      const parsed = content ? parseTechnique(content) : null;
+      if (checklist && parsed?.success) {
+        definition = parsed.data;
+        output = checklist.output;
       }
     }
     if (!definition) throw notAllowedNow(`${item.code} has no complete technique definition the checklist can evaluate`);
-    const policy = await loadOrganisationPolicy(deps.sequelize);
-    const output = evaluateParsedTechnique(definition, { policy, now });
+    if (!output) output = evaluateParsedTechnique(definition, { policy: await loadOrganisationPolicy(deps.sequelize), now });
     const notes = Object.fromEntries(Object.entries(input.notes ?? {}).filter(([index]) => Number(index) < output.results.length));
     const run = await ChecklistRun.create(
       {
