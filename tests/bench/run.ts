@@ -315,7 +315,7 @@ function writeResults({
     '| SQL queries per list request constant in the page size | tests/server/list-query-count.test.ts (npm test) | see the test |',
     '',
   ];
-  const file = path.join(ROOT, 'tests/bench/RESULTS.md');
+  const file = path.join(ROOT, process.env.BENCH_RESULTS_FILE ?? 'tests/bench/RESULTS.md');
   const analysisMarker = '<!-- analysis -->';
   let analysis = '';
   try {

@@ -3,15 +3,21 @@
 // Sequelize connection of the test's own for setting up users and checking rows.
 import { readFileSync, existsSync } from 'node:fs';
 import path from 'node:path';
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import { startLocalMariadb } from '../../../server/db/local-mariadb';
 import { createSequelize } from '../../../server/db/sequelize';
-import { initModels, RoleAssignment, User } from '../../../server/models';
+import { initModels } from '../../../server/models';
 import { hashPassword } from '../../../server/auth/passwords';
 import type { Role } from '../../../shared/roles';
 import { startTestDatabase } from '../../helpers/test-database';
 
 export const FAULT_PASSWORD = 'fault test password 2026';
+
+export interface FaultUser {
+  id: number;
+  email: string;
+  displayName: string;
+}
 
 export interface FaultDatabase {
   url: string;
@@ -24,7 +30,7 @@ export interface FaultDatabase {
   kill(): void;
   /** Starts the server again on the same data folder and port. */
   restart(): Promise<void>;
-  createUser(roles: Role[], tag?: string): Promise<User>;
+  createUser(roles: Role[], tag?: string): Promise<FaultUser>;
   stop(): Promise<void>;
 }
 
@@ -55,15 +61,23 @@ export async function startFaultDatabase(label: string): Promise<FaultDatabase> 
       await startLocalMariadb({ dir, port: instance.port, database: databaseName });
     },
     async createUser(roles, tag = `u${(counter += 1)}`) {
-      const user = await User.create({
-        email: `${tag}-${Date.now()}@faults.example`,
-        displayName: `Fault ${tag}`,
-        passwordHash: await (passwordHash ??= hashPassword(FAULT_PASSWORD)),
-        areaId: null,
-        lockedAt: null,
-      });
-      await RoleAssignment.bulkCreate(roles.map((role) => ({ userId: user.id, role })));
-      return user;
+      // Raw SQL on this instance's own connection: the models are bound to one
+      // Sequelize per process, and a test may run two databases at once.
+      const now = new Date();
+      const email = `${tag}-${Date.now()}@faults.example`;
+      const displayName = `Fault ${tag}`;
+      const [id] = await sequelize.query(
+        `INSERT INTO users (email, display_name, password_hash, area_id, active, failed_sign_ins, mail_digest, version, created_at, updated_at)
+         VALUES (?, ?, ?, NULL, 1, 0, 0, 0, ?, ?)`,
+        { replacements: [email, displayName, await (passwordHash ??= hashPassword(FAULT_PASSWORD)), now, now], type: QueryTypes.INSERT },
+      );
+      for (const role of roles) {
+        await sequelize.query('INSERT INTO role_assignments (user_id, role, created_at, updated_at) VALUES (?, ?, ?, ?)', {
+          replacements: [id, role, now, now],
+          type: QueryTypes.INSERT,
+        });
+      }
+      return { id: Number(id), email, displayName };
     },
     async stop() {
       await sequelize.close().catch(() => undefined);
