@@ -8,6 +8,7 @@ import { startSmtpFake, type SmtpFake } from './smtp-fake';
 import { createOutboxWorker, type OutboxWorker } from './outbox-worker';
 import { mailEffectSink, registerOutboxWorker } from './mail-effects';
 import { SCHEDULED_JOBS, createScheduler, type Scheduler } from '../jobs';
+import { sweepEvidenceTemp } from '../services/evidence.service';
 
 export interface MailRuntime {
   /** The local fake, when no SMTP_URL is configured. */
@@ -55,6 +56,8 @@ export async function startMail(deps: AppDeps, options: StartMailOptions = {}): 
   const scheduler = createScheduler(deps, SCHEDULED_JOBS, { onRan: () => worker.kick() });
   if (options.scheduler ?? config.scheduler.enabled) scheduler.start(config.scheduler.intervalSeconds);
   worker.kick();
+  // Finish evidence moves a crash interrupted before the server takes requests.
+  void sweepEvidenceTemp(deps).catch((error) => logger.error('Evidence sweep at start-up failed', error));
   return {
     smtp,
     worker,

@@ -35,34 +35,37 @@ function makePdf(text: string): Promise<Buffer> {
 }
 
 describe('evidence and mail in the browser', () => {
-  it('when the quality manager uploads a certificate scan, then the progress bar fills and the stored hash shows; an executable is refused with the reason', async () => {
+  it('when the quality manager uploads files on a corrective action page, then each shows its progress and the stored hash; an executable is refused with the reason', async () => {
     const context = await browser.newContext();
     const page = await context.newPage();
     await signInAs(page, 'quality@tarnbrook.example');
     await page.getByRole('heading', { level: 1 }).waitFor();
-    await page.goto(`${inject('baseUrl')}/registers/certifications`);
-    await page.getByRole('button', { name: /^Open / }).first().click();
-    const dialog = page.getByRole('dialog');
-    await dialog.getByRole('heading', { name: 'Certificate and vision-exam evidence' }).waitFor();
+    await page.goto(`${inject('baseUrl')}/actions/1`);
+    const panel = page.getByRole('region', { name: 'Evidence' });
+    await panel.getByRole('heading', { name: 'Evidence' }).waitFor();
 
-    const pdf = await makePdf(`Near-vision exam record, Jaeger J1 at 30 cm, ${Date.now()}`);
+    const pdf = await makePdf(`Rotating probe demonstration on the reference block, ${Date.now()}`);
     const hash = createHash('sha256').update(pdf).digest('hex');
-    await dialog.getByLabel('Evidence files to upload').setInputFiles([
-      { name: 'vision-exam.pdf', mimeType: 'application/pdf', buffer: pdf },
+    const csv = Buffer.from(`channel,frequency_hz,phase_deg\n1,300000,41.7\n2,300000,${Date.now() % 90}\n`);
+    await panel.getByLabel('Evidence files to upload').setInputFiles([
+      { name: 'demonstration.pdf', mimeType: 'application/pdf', buffer: pdf },
+      { name: 'instrument-export.csv', mimeType: 'text/csv', buffer: csv },
       { name: 'setup.pdf', mimeType: 'application/pdf', buffer: Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0]), Buffer.alloc(200)]) },
     ]);
-    const uploads = dialog.getByRole('list', { name: 'Uploads' });
+    const uploads = panel.getByRole('list', { name: 'Uploads' });
     await uploads.getByText(`Stored · SHA-256 ${hash.slice(0, 12)}`).waitFor();
-    expect(await uploads.getByRole('progressbar', { name: 'Upload of vision-exam.pdf' }).getAttribute('aria-valuenow')).toBe('100');
+    expect(await uploads.getByRole('progressbar', { name: 'Upload of demonstration.pdf' }).getAttribute('aria-valuenow')).toBe('100');
+    await uploads.getByText(`Stored · SHA-256 ${createHash('sha256').update(csv).digest('hex').slice(0, 12)}`).waitFor();
     const refusal = uploads.getByRole('alert');
     await refusal.waitFor();
     expect(await refusal.textContent()).toContain('setup.pdf');
     expect(await refusal.textContent()).toContain('not accepted');
 
-    const row = dialog.locator('tr', { hasText: 'vision-exam.pdf' });
+    const row = panel.locator('tr', { hasText: 'demonstration.pdf' });
     await row.waitFor();
     expect(await row.getByTestId('evidence-hash').textContent()).toBe(hash.slice(0, 12));
     expect(await row.getByTestId('evidence-hash').getAttribute('title')).toBe(hash);
+    expect(await row.textContent()).toContain('Ines Harrow');
     await page.screenshot({ path: screenshotPath('evidence-upload'), fullPage: true });
     await context.close();
   });
