@@ -3,8 +3,8 @@
 // bytes → owning record and role rule checked → row + trail entry committed →
 // file copied to its content-addressed key → temporary file removed.
 // Nothing is ever overwritten or deleted; a file can only be marked superseded.
-import { createHash } from 'node:crypto';
-import { readdir, stat, unlink } from 'node:fs/promises';
+import { createHash, randomUUID } from 'node:crypto';
+import { mkdir, readdir, stat, unlink, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
 import { subject } from '@casl/ability';
@@ -223,6 +223,37 @@ export async function supersedeEvidence(deps: AppDeps, actor: Actor, id: number,
   });
   const [view] = await presentRows(deps, actor, [id]);
   return view;
+}
+
+/**
+ * Adds evidence from bytes held in memory (demo data, imports): the same
+ * checks and trail entry as an upload, without a request. The bytes go through
+ * the temporary folder and reach storage once the row has committed.
+ */
+export async function addEvidenceFromBytes(
+  deps: AppDeps,
+  actor: Actor,
+  input: EvidenceOwner & { fileName: string; bytes: Buffer },
+): Promise<EvidenceView> {
+  const tempName = `${randomUUID()}.upload`;
+  const dir = uploadTempDir(deps.config);
+  const filePath = path.join(dir, tempName);
+  await mkdir(dir, { recursive: true });
+  await writeFile(filePath, input.bytes, { flag: 'wx', mode: 0o600 });
+  const file = {
+    originalname: input.fileName,
+    path: filePath,
+    tempName,
+    size: input.bytes.length,
+    sha256: createHash('sha256').update(input.bytes).digest('hex'),
+  } as HashedUpload;
+  try {
+    const [view] = await addEvidence(deps, actor, { recordType: input.recordType, recordId: input.recordId }, [file]);
+    return view;
+  } catch (error) {
+    await removeTempFiles([file]);
+    throw error;
+  }
 }
 
 /** Removes temporary files of failed requests. */

@@ -5,7 +5,8 @@ import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import request from 'supertest';
 import { EvidenceFile, TrailEntry } from '../../server/models';
-import { countEvidence, sweepEvidenceTemp } from '../../server/services/evidence.service';
+import { addEvidenceFromBytes, countEvidence, sweepEvidenceTemp } from '../../server/services/evidence.service';
+import { defineAbilityFor } from '../../shared/abilities';
 import { createTestContext, makeUser, signIn, signedInAs, type TestContext } from '../helpers/test-app';
 import { makeActionRow } from '../helpers/evidence-owners';
 
@@ -292,6 +293,19 @@ describe('evidence uploads', () => {
     expect(preview.headers['x-content-type-options']).toBe('nosniff');
     const pdf = (await session.post('/api/evidence').field('recordType', 'action').field('recordId', String(action.id)).attach('file', await makePdf('p'), { filename: 'p.pdf' })).body.items[0];
     expect((await session.agent.get(`/api/evidence/${pdf.id}/preview`)).status).toBe(415);
+  });
+
+  it('when evidence is added from bytes (demo data, imports), then it is checked, stored and on the trail like an upload', async () => {
+    const { action, technician } = await ownerWithAction();
+    const bytes = Buffer.from(`Briefing record, night shift, ${Date.now()}\n`);
+    const ability = defineAbilityFor({ id: technician.id, roles: ['technician'], areaId: null });
+    const actor = { user: { id: technician.id, email: technician.email, displayName: technician.displayName, roles: ['technician'], areaId: null } as never, ability };
+    const view = await addEvidenceFromBytes(context.deps, actor, { recordType: 'action', recordId: action.id, fileName: 'briefing.txt', bytes });
+    expect(view).toMatchObject({ fileName: 'briefing.txt', mediaType: 'text/plain', sha256: sha256(bytes) });
+    expect(readFileSync(path.join(objectsDir, 'sha256', view.sha256.slice(0, 2), view.sha256.slice(2, 4), view.sha256)).equals(bytes)).toBe(true);
+    expect(await TrailEntry.count({ where: { recordType: 'evidence', recordId: String(view.id), event: 'EVIDENCE_UPLOADED' } })).toBe(1);
+    await expect(addEvidenceFromBytes(context.deps, actor, { recordType: 'action', recordId: action.id, fileName: 'x.pdf', bytes: ELF })).rejects.toMatchObject({ status: 415 });
+    expect(filesUnder(tempDir)).toEqual([]);
   });
 
   it('when the sweep runs, then it finishes an interrupted move and removes unclaimed leftovers', async () => {
