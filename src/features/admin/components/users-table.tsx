@@ -7,6 +7,7 @@ import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { useListParams } from '../../../hooks/use-list-params';
+import { CsvExportLink } from '../../../components/ui/export-links';
 import { useCreateUser, useUnlockUser, useUpdateUser, useUsers } from '../api/users';
 import { UserForm, type UserFormValues } from './user-form';
 
@@ -117,7 +118,10 @@ export function UsersTable() {
             onChange={(event) => list.update({ q: event.target.value })}
           />
         </label>
-        <Button onClick={() => setPending({ kind: 'create' })}>Add a person</Button>
+        <div className="flex gap-2">
+          <CsvExportLink path="/users.csv" query={list.query} />
+          <Button onClick={() => setPending({ kind: 'create' })}>Add a person</Button>
+        </div>
       </div>
       <DataTable
         caption="People who can sign in to Whorl"

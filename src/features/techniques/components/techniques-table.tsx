@@ -4,6 +4,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { TECHNIQUE_REVISION_STATES, TECHNIQUE_STATE_LABELS, VERDICTS, VERDICT_LABELS, type TechniqueListItem } from '../../../../shared/schemas/technique-register';
 import { DataTable } from '../../../components/ui/data-table';
 import { useListParams } from '../../../hooks/use-list-params';
+import { CsvExportLink } from '../../../components/ui/export-links';
 import { useAreas, useTechniques } from '../api/techniques';
 import { StateBadge, VerdictBadge } from './badges';
 import { RULE_LABELS } from './labels';
@@ -103,6 +104,7 @@ export function TechniquesTable() {
             ))}
           </select>
         </label>
+        <CsvExportLink path="/techniques.csv" query={list.query} />
       </div>
       <DataTable
         caption="Written eddy current techniques"
