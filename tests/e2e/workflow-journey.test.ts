@@ -151,5 +151,25 @@ describe('the workflow journey in the browser', () => {
     expect(await list.getByText('Classify the finding').count()).toBeGreaterThanOrEqual(2);
     expect(await list.getByText(/Overdue since/).count()).toBeGreaterThan(0);
     await quality.screenshot({ path: screenshotPath('home-waiting-on-quality-manager'), fullPage: true });
+
+    // The findings list filters on the server; the filters live in the address bar.
+    await quality.getByRole('link', { name: 'Findings', exact: true }).click();
+    await quality.getByLabel('State').selectOption('in_review');
+    await quality.waitForURL(/state=in_review/);
+    const table = quality.getByRole('table', { name: 'Findings' });
+    await table.getByText('In review').first().waitFor();
+    expect(await table.locator('tbody tr').count()).toBeGreaterThanOrEqual(2);
+    await quality.getByLabel('State').selectOption('');
+    await quality.waitForURL((url) => !url.search.includes('state='));
+    await expect.poll(() => table.locator('tbody tr').count()).toBeGreaterThan(2);
+    const all = await table.locator('tbody tr').count();
+    await quality.getByLabel('Overdue only').click();
+    await quality.waitForURL(/overdue=true/);
+    await expect.poll(() => table.locator('tbody tr').count()).toBeLessThan(all);
+    const overdueRows = table.locator('tbody tr');
+    for (let index = 0; index < (await overdueRows.count()); index += 1) {
+      expect(await overdueRows.nth(index).textContent()).toContain('overdue');
+    }
+    await quality.screenshot({ path: screenshotPath('findings-overdue'), fullPage: true });
   });
 });
