@@ -42,10 +42,11 @@ function equipmentFact(item: Equipment): EquipmentFact {
   return {
     id: item.id,
     kind: item.kind as EquipmentFact['kind'],
-    // The engine judges calibration dates only; a quarantined or retired item says so in its name.
-    description: status ? `${item.description} [${status}]` : item.description,
+    description: status ? `${item.description} [${status}: out of use]` : item.description,
     serialNumber: item.serialNumber,
-    calibrationDueOn: item.calibrationDueOn ? new Date(`${item.calibrationDueOn}T00:00:00Z`) : null,
+    // The engine's fact has no status field: an item out of use must fail the check, so it goes
+    // in without a valid calibration (the engine then fails it and the description says why).
+    calibrationDueOn: status ? null : item.calibrationDueOn ? new Date(`${item.calibrationDueOn}T00:00:00Z`) : null,
   };
 }
 

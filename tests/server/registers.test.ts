@@ -272,6 +272,14 @@ describe('register facts for a technique', () => {
       ['probe', 'fail'],
       ['reference-standard', 'pass'],
     ]);
+
+    // A quarantined instrument fails the check whatever its calibration date.
+    await quality.patch(`/api/equipment/${instrument.body.id}`).send({ version: instrument.body.version, status: 'quarantined' });
+    const after = await buildRegisterFacts({ techniqueId: Number(techniqueId), approvedById: level3.id, approvedAt: new Date('2026-10-01T09:00:00Z') });
+    const rerun = evaluateParsedTechnique(technique.data, { registers: after as never, now: new Date('2026-12-01T12:00:00Z') });
+    const instrumentResult = rerun.results.find((r) => r.rule === 'equipment' && r.values.kind === 'instrument')!;
+    expect(instrumentResult.status).toBe('fail');
+    expect(instrumentResult.message).toContain('Flaw detector [quarantined: out of use]');
   });
 });
 
