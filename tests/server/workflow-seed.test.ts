@@ -4,7 +4,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createSequelize } from '../../server/db/sequelize';
-import { seedDemo } from '../../server/db/seed';
+import { seedSteps } from '../../server/db/seed';
+import type { SeedContext } from '../../server/db/seed/seed-context';
+import { loadConfig, type AppConfig } from '../../server/config/env';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { verifyTrail } from '../../server/services/trail.service';
 import { AUDIT_STATES, CORRECTIVE_ACTION_STATES, FINDING_STATES } from '../../machines';
 import { startTestDatabase } from '../helpers/test-database';
@@ -12,14 +17,22 @@ import { initModels } from '../../server/models';
 
 let database: Awaited<ReturnType<typeof startTestDatabase>>;
 let sequelize: Sequelize;
+const storageDir = mkdtempSync(path.join(tmpdir(), 'whorl-seed-evidence-'));
 beforeAll(async () => {
   database = await startTestDatabase('seed');
   sequelize = createSequelize({ url: database.instance.url, poolMax: 5 });
-  await seedDemo(sequelize);
+  initModels(sequelize);
+  // The steps of seedDemo, with the application's configuration on the context so evidence goes to storage.
+  const config: AppConfig = loadConfig({
+    NODE_ENV: 'test', DATABASE_URL: database.instance.url, SESSION_SECRET: 'seed-test-secret-that-is-long-enough', LOG_LEVEL: 'silent', STORAGE_DIR: storageDir,
+  });
+  const context = { sequelize, now: new Date(), users: {}, areas: {}, refs: {}, config } as SeedContext;
+  for (const step of seedSteps) await step(context);
 }, 120_000);
 afterAll(async () => {
   await sequelize?.close();
   await database?.stop();
+  rmSync(storageDir, { recursive: true, force: true });
 });
 
 const statesOf = async (table: string) =>
@@ -52,7 +65,12 @@ describe('the demo workflow seed', () => {
     }
     const signatures = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM signatures WHERE record_type = 'finding'", { type: QueryTypes.SELECT });
     expect(Number(signatures[0].n)).toBeGreaterThan(0);
-    initModels(sequelize);
     expect((await verifyTrail(sequelize)).ok).toBe(true);
+    const evidence = await sequelize.query<{ stored: number; total: number }>(
+      "SELECT SUM(stored_at IS NOT NULL) AS stored, COUNT(*) AS total FROM evidence_files WHERE record_type = 'action'",
+      { type: QueryTypes.SELECT },
+    );
+    expect(Number(evidence[0].total)).toBeGreaterThan(0);
+    expect(Number(evidence[0].stored)).toBe(Number(evidence[0].total));
   });
 });

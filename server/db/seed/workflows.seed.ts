@@ -17,6 +17,7 @@ import { assignAction } from '../../services/actions.service';
 import { applyRecordEvent } from '../../services/record-events.service';
 import { addDays } from '../../services/workflow-policy';
 import { contentKey } from '../../storage';
+import { addEvidenceFromBytes } from '../../services/evidence.service';
 import type { RecordKind } from '../../../machines';
 import { DEMO_USERS } from './people.seed';
 import { DEMO_PASSWORD, type SeedContext, type SeedStep } from './seed-context';
@@ -68,27 +69,34 @@ function makeDriver(context: SeedContext) {
 type Driver = ReturnType<typeof makeDriver>;
 
 /**
- * A current evidence row so the owner can submit. Only the file's metadata is
- * seeded (name, size, SHA-256 of the text below); the evidence feature's own
- * seed step, which runs later, may store the bytes under the same key.
+ * A current evidence file so the owner can submit. With the application's
+ * configuration on the seed context (`context.config`), the file goes through
+ * the evidence service like an upload (bytes in storage, trail entry). Without
+ * it only the file's metadata row is written (name, size, SHA-256 of the text):
+ * the record is consistent, but a download reports the bytes missing.
  */
 async function seedEvidenceRow(driver: Driver, context: SeedContext, actionId: number, ownerKey: UserKey, name: string, text: string) {
-  const sha256 = createHash('sha256').update(text).digest('hex');
-  await EvidenceFile.create(
-    {
-      recordType: 'action',
-      recordId: actionId,
-      originalName: name,
-      mediaType: 'text/plain',
-      sizeBytes: Buffer.byteLength(text),
-      sha256,
-      storageKey: contentKey(sha256),
-      tempName: null,
-      storedAt: null,
-      uploadedById: context.users[ownerKey].id,
-    },
-  );
-  void driver;
+  const config = (context as SeedContext & { config?: AppConfig }).config;
+  const bytes = Buffer.from(text, 'utf8');
+  if (config) {
+    const { actor, ability } = driver.as(ownerKey);
+    const user = { ...actor, email: '', areaId: null, areaName: null, roles: [...actor.roles] };
+    await addEvidenceFromBytes({ ...driver.deps, config }, { user, ability }, { recordType: 'action', recordId: actionId, fileName: name, bytes });
+    return;
+  }
+  const sha256 = createHash('sha256').update(bytes).digest('hex');
+  await EvidenceFile.create({
+    recordType: 'action',
+    recordId: actionId,
+    originalName: name,
+    mediaType: 'text/plain',
+    sizeBytes: bytes.length,
+    sha256,
+    storageKey: contentKey(sha256),
+    tempName: null,
+    storedAt: null,
+    uploadedById: context.users[ownerKey].id,
+  });
 }
 
 /** A finding written by the auditor (not from a checklist result). */
