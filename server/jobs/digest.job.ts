@@ -59,6 +59,8 @@ export const digestJob: ScheduledJob = {
         `SELECT id FROM outbox_messages WHERE dedupe_key = ?`,
         { replacements: [digestKey], type: QueryTypes.SELECT, transaction },
       );
+      // No row: the person was deactivated meanwhile; their held mail stays held.
+      if (!digest) continue;
       // The digest row itself must go out even though this person holds mail: send it as pending.
       await OutboxMessage.update({ status: 'pending' }, { where: { id: digest.id, status: 'held' }, transaction });
       await OutboxMessage.update({ status: 'digested', digestId: digest.id }, { where: { id: held.map((message) => message.id) }, transaction });

@@ -51,7 +51,7 @@ export const actionReminderSource: ReminderSource = {
         to: [Number(row.owner_id)],
         subject: `${number} is overdue by ${plural(daysOverdue, 'day')}`,
         paragraphs: [
-          `Your ${about} was due on ${dueDate} and is ${plural(daysOverdue, 'day')} overdue. It is ${String(row.state).replace(/_/g, ' ')}.`,
+          `Your ${about} was due on ${dueDate} and is ${plural(daysOverdue, 'day')} overdue. It is still ${String(row.state).replace(/_/g, ' ')}.`,
           'Finish it, or ask the quality manager for an extension with your reason.',
         ],
         dedupeKey: `action:${id}:overdue:${today}`,

@@ -69,6 +69,15 @@ export function EvidencePanel({ recordType, recordId, recordOwnerId = null, read
     if (files.length) send(files);
   };
 
+  if (!ability.can('read', subject('Evidence', { recordType, recordId, recordOwnerId }))) {
+    return (
+      <section className="rounded-lg border border-ink/10 bg-white px-4 py-3 text-sm text-ink-soft">
+        <h2 className="mb-1 text-lg font-bold text-ink">{title}</h2>
+        Evidence files are open to the people who work the quality records (and certificates to their holder).
+      </section>
+    );
+  }
+
   const files = evidence.data?.items ?? [];
   const current = files.filter((file) => !file.superseded).length;
 
