@@ -61,6 +61,12 @@ describe('dashboard and registers in the browser', () => {
     await page.getByText('FM40-00731').waitFor();
     expect(await page.getByRole('table', { name: 'Equipment register' }).textContent()).toMatch(/Overdue by 12 days/);
     await page.screenshot({ path: screenshotPath('registers-equipment'), fullPage: true });
+    // The bar-stock technique uses the portable instrument whose calibration lapsed.
+    await page.getByRole('link', { name: 'Technique links' }).click();
+    await page.getByLabel('Technique').selectOption({ label: (await page.locator('option', { hasText: 'TAC-ET-017' }).textContent())! });
+    await page.getByText('FM40-00731', { exact: false }).waitFor();
+    expect(await page.locator('main').textContent()).toContain('Deniz Calloway');
+    await page.screenshot({ path: screenshotPath('registers-technique-links'), fullPage: true });
     await context.close();
   });
 });

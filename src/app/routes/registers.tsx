@@ -2,11 +2,13 @@ import { NavLink, Navigate, useParams } from 'react-router-dom';
 import { PageHeader } from '../../components/ui/states';
 import { CertificationsTable } from '../../features/registers/components/certifications-table';
 import { EquipmentTable } from '../../features/registers/components/equipment-table';
+import { TechniqueLinksPanel } from '../../features/registers/components/technique-links-panel';
 import { EvidencePanel } from '../../features/evidence/components/evidence-panel';
 
 const TABS = [
   { id: 'certifications', label: 'Personnel certifications' },
   { id: 'equipment', label: 'Equipment' },
+  { id: 'technique-links', label: 'Technique links' },
 ] as const;
 
 export function Component() {
@@ -41,12 +43,20 @@ export function Component() {
             )}
           />
         </>
-      ) : (
+      ) : tab === 'equipment' ? (
         <>
           <p className="mb-3 max-w-3xl text-sm text-ink-soft">
             Instruments, probes and reference standards must be within calibration when used. Quarantined and retired items are kept with their history.
           </p>
           <EquipmentTable />
+        </>
+      ) : (
+        <>
+          <p className="mb-3 max-w-3xl text-sm text-ink-soft">
+            The equipment and people each technique uses. The technique checklist judges them: the performers' ET certificates and near-vision exams,
+            and the calibration of every instrument, probe and reference standard linked here.
+          </p>
+          <TechniqueLinksPanel />
         </>
       )}
     </div>
