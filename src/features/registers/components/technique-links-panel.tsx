@@ -16,7 +16,7 @@ function LinksEditor({ techniqueId }: { techniqueId: number }) {
   const ability = useAbility();
   const canEdit = ability.can('create', 'Technique') || ability.can('update', 'Equipment');
   const links = useTechniqueLinks(techniqueId);
-  const equipment = useEquipment({ pageSize: 200, sort: 'description', status: 'in_service' });
+  const equipment = useEquipment({ pageSize: 200, sort: 'description' });
   const people = usePeople();
   const save = useSetTechniqueLinks(techniqueId);
   const [equipmentIds, setEquipmentIds] = useState<number[]>([]);
@@ -88,7 +88,7 @@ function LinksEditor({ techniqueId }: { techniqueId: number }) {
     >
       <div className="grid gap-4 md:grid-cols-2">
         <fieldset className="flex flex-col gap-1">
-          <legend className="text-sm font-bold">Equipment in service</legend>
+          <legend className="text-sm font-bold">Equipment</legend>
           {EQUIPMENT_KIND_VALUES.map((kind) => (
             <div key={kind} className="mt-1">
               <p className="text-xs font-bold uppercase text-ink-soft">{EQUIPMENT_KIND_LABELS[kind]}</p>
@@ -98,6 +98,7 @@ function LinksEditor({ techniqueId }: { techniqueId: number }) {
                   <label key={item.id} className="flex items-center gap-2 text-sm">
                     <input type="checkbox" checked={equipmentIds.includes(item.id)} onChange={(e) => setEquipmentIds(toggle(equipmentIds, item.id, e.target.checked))} />
                     {item.description} (s/n {item.serialNumber})
+                    <CalibrationBadge flag={item.calibration} status={item.status} />
                   </label>
                 ))}
             </div>
