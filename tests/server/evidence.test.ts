@@ -4,7 +4,7 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import request from 'supertest';
-import { EvidenceFile, TrailEntry } from '../../server/models';
+import { Certification, EvidenceFile, TrailEntry } from '../../server/models';
 import { addEvidenceFromBytes, countEvidence, sweepEvidenceTemp } from '../../server/services/evidence.service';
 import { defineAbilityFor } from '../../shared/abilities';
 import { createTestContext, makeUser, signIn, signedInAs, type TestContext } from '../helpers/test-app';
@@ -212,6 +212,31 @@ describe('evidence uploads', () => {
     const auditor = await signedInAs(context, ['auditor']);
     expect((await auditor.post('/api/evidence').field('recordType', 'action').field('recordId', String(action.id)).attach('file', pdf, { filename: 'd.pdf' })).status).toBe(201);
     expect((await auditor.agent.get(`/api/evidence/${id}/download`)).status).toBe(200);
+  });
+
+  it('when evidence belongs to a certificate, then its holder and quality staff may open it and another technician may not', async () => {
+    const holder = await makeUser({ roles: ['technician'] });
+    const certification = await Certification.create({
+      userId: holder.id, method: 'ET', level: 2, scheme: 'EN 4179', certificateNumber: `T-${Date.now()}`, issuedOn: '2025-01-10', expiresOn: '2030-01-10',
+      nearVisionExamOn: '2026-06-01', colourVisionCheckedOn: null, notes: null,
+    });
+    const pdf = await makePdf('Near-vision exam record');
+    const own = await signIn(context.app, holder);
+    const created = await own.post('/api/evidence').field('recordType', 'certification').field('recordId', String(certification.id)).attach('file', pdf, { filename: 'vision.pdf' });
+    expect(created.status).toBe(201);
+    const id = created.body.items[0].id;
+    expect((await own.agent.get(`/api/evidence/${id}/download`)).status).toBe(200);
+
+    const colleague = await signedInAs(context, ['technician']);
+    expect((await colleague.agent.get(`/api/evidence/${id}/download`)).status).toBe(403);
+    expect((await colleague.agent.get(`/api/evidence?recordType=certification&recordId=${certification.id}`)).status).toBe(403);
+    expect((await colleague.post('/api/evidence').field('recordType', 'certification').field('recordId', String(certification.id)).attach('file', pdf, { filename: 'x.pdf' })).status).toBe(403);
+
+    for (const roles of [['quality_manager'], ['auditor'], ['accountable_manager']] as const) {
+      const staff = await signedInAs(context, [...roles]);
+      expect((await staff.agent.get(`/api/evidence/${id}/download`)).status).toBe(200);
+    }
+    expect(filesUnder(tempDir)).toEqual([]);
   });
 
   it('when a stored byte is flipped on disk, then the download is refused and an integrity failure is on the trail', async () => {
