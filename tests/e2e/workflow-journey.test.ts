@@ -81,7 +81,6 @@ describe('the workflow journey in the browser', () => {
     await quality.getByRole('link', { name: /^CA-\d{4}-\d{4}$/ }).click();
     await quality.getByRole('heading', { name: /^CA-\d{4}-\d{4} for F-/ }).waitFor();
     const actionUrl = quality.url();
-    const actionId = Number(new URL(actionUrl).pathname.split('/').pop());
 
     // The Level 3 investigates and plans; the quality manager approves the plan.
     const owner = await as('level3@tarnbrook.example');
@@ -95,21 +94,14 @@ describe('the workflow journey in the browser', () => {
     await quality.reload();
     await sendEvent(quality, 'Approve plan');
 
-    // Evidence: uploaded through the real evidence API from the owner's signed-in page (the upload
-    // panel is the evidence feature's and is not mounted on this page yet).
+    // Evidence: the owner uploads a file on the action page's evidence panel.
     await owner.reload();
-    const uploaded = await owner.evaluate(async (id) => {
-      const session = await (await fetch('/api/session')).json();
-      const form = new FormData();
-      form.append('recordType', 'action');
-      form.append('recordId', String(id));
-      form.append('file', new File(['Rev B demonstration: circumferential notch detected with the rotating probe.'], 'demonstration.txt', { type: 'text/plain' }));
-      const response = await fetch('/api/evidence', { method: 'POST', body: form, headers: { 'X-CSRF-Token': session.csrfToken } });
-      return response.status;
-    }, actionId);
-    expect(uploaded).toBe(201);
-    await owner.reload();
-    await owner.getByText('Evidence files').waitFor();
+    const panel = owner.getByRole('region', { name: 'Evidence' });
+    await panel.getByLabel('Evidence files to upload').setInputFiles([
+      { name: 'demonstration.txt', mimeType: 'text/plain', buffer: Buffer.from(`Rev B demonstration: circumferential notch detected with the rotating probe. ${Date.now()}`) },
+    ]);
+    await panel.getByRole('list', { name: 'Uploads' }).getByText(/Stored · SHA-256/).waitFor();
+    await owner.getByRole('group', { name: 'Actions' }).getByRole('button', { name: 'Submit' }).waitFor();
     await sendEvent(owner, 'Submit', async (dialog) => {
       await dialog.getByLabel('Summary of what was done').fill('Technique revised to rev B with a rotating-probe pass');
     });
