@@ -85,8 +85,9 @@ export async function raiseFromRun(lead: SignedIn, auditId: number, runId: numbe
 }
 
 /**
- * Stub evidence row until the evidence issue lands in this test's path: the row the
- * evidence upload writes (current, stored), inserted directly so SUBMIT has its fact.
+ * Stub evidence row: the metadata row an upload writes (current, stored), inserted
+ * directly so SUBMIT has its evidenceCount fact without file storage. Uploading
+ * itself is tested by the evidence tests and by the browser journey.
  */
 export async function stubEvidenceRow(actionId: number, uploader: User) {
   const bytes = `calibration record ${randomBytes(4).toString('hex')}`;

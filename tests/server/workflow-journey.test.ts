@@ -100,7 +100,7 @@ describe('the audit → finding → corrective action journey', () => {
     const noEvidence = await send(owner, 'actions', assigned.id, { type: 'SUBMIT', summary: 'Technique revised' });
     expect(noEvidence.status).toBe(422);
     expect(noEvidence.body.error.message).toContain('evidence');
-    await stubEvidenceRow(assigned.id, owner.user); // stub evidence row until the evidence issue lands in this path
+    await stubEvidenceRow(assigned.id, owner.user); // stub evidence row (metadata only); uploads are tested by the evidence tests
     expect((await send(technician, 'actions', assigned.id, { type: 'SUBMIT', summary: 'x' })).status).toBe(403);
     const submitted = await expectOk(await send(owner, 'actions', assigned.id, { type: 'SUBMIT', summary: 'Technique revised to rev B with a rotating probe; tubes re-inspected' }));
     expect(submitted).toMatchObject({ state: 'submitted', evidenceCount: 1 });
