@@ -72,6 +72,24 @@ async function load(name: string, options: autocannon.Options, note?: string): P
   return figures;
 }
 
+/** One client, one request at a time: the latency without queueing (median of n). */
+async function sequentialMedian(client: ApiClient | null, url: string, init: { method?: string; body?: unknown } = {}, n = 9): Promise<number> {
+  const times: number[] = [];
+  for (let i = 0; i < n; i += 1) {
+    if (client) {
+      const result = await client.call(init.method ?? 'GET', url.replace(client.baseUrl, ''), init.body, 60_000);
+      if (result.status !== 200) throw new Error(`${url}: ${result.status}`);
+      times.push(result.ms);
+    } else {
+      const started = performance.now();
+      const response = await fetch(url);
+      await response.arrayBuffer();
+      times.push(performance.now() - started);
+    }
+  }
+  return times.sort((a, b) => a - b)[Math.floor(n / 2)];
+}
+
 function startBaseline(databaseUrl: string, port: number): Promise<ChildProcess> {
   mkdirSync(path.join(ROOT, 'tests/output'), { recursive: true });
   const fd = openSync(path.join(ROOT, 'tests/output/bench-baseline.log'), 'w');
@@ -131,9 +149,18 @@ async function main() {
     ]);
     const json = { 'content-type': 'application/json' };
     const results: LoadFigures[] = [];
+    const sequential: Record<string, number> = {};
+    const plan = database.instance.rootSql(
+      "USE whorl_bench; EXPLAIN SELECT f.id FROM findings f LEFT JOIN corrective_actions ca ON ca.finding_id = f.id WHERE f.state = 'action_open' ORDER BY f.number DESC, f.id DESC LIMIT 50 OFFSET 100",
+    );
     const hasFindings = seed.counts.findings !== undefined && (await quality.call('GET', '/api/findings?pageSize=1')).status === 200;
 
     if (hasFindings) {
+      sequential['findings list (Whorl)'] = await sequentialMedian(quality, `${app.url}/api/findings?${LIST_QUERY}`);
+      sequential['findings list (baseline)'] = await sequentialMedian(null, `http://127.0.0.1:${baselinePort}/findings?${LIST_QUERY}`);
+      sequential["a finding's page (Whorl)"] = await sequentialMedian(quality, `${app.url}/api/findings/${seed.findingIds[777]}`);
+      sequential['checklist evaluate (Whorl)'] = await sequentialMedian(auditor, `${app.url}/api/checklist/evaluate`, { method: 'POST', body: DEMO_TECHNIQUES[0] });
+      console.log(`one request at a time (median ms): ${JSON.stringify(Object.fromEntries(Object.entries(sequential).map(([k, v]) => [k, Math.round(v)])))}`);
       const whorlList = await load('Whorl: findings list (state filter, sorted, page 3 of 50)', {
         url: `${app.url}/api/findings?${LIST_QUERY}`,
         headers: { cookie: quality.cookieHeader },
@@ -239,7 +266,7 @@ async function main() {
     const bundles = await measureBundles();
     console.log(`initial JS (gzip): sign-in ${(bundles.signIn.gzipBytes / 1024).toFixed(1)} kB, largest route ${bundles.largest.route} ${(bundles.largest.gzipBytes / 1024).toFixed(1)} kB`);
 
-    writeResults({ info, seed, results, verifications, engine, bundles });
+    writeResults({ info, seed, results, verifications, engine, bundles, sequential, plan, loadAtEnd: os.loadavg().map((v) => v.toFixed(2)).join(' ') });
   } finally {
     baseline?.kill('SIGTERM');
     await stopAllAppProcesses();
@@ -254,7 +281,13 @@ function writeResults({
   verifications,
   engine,
   bundles,
+  sequential,
+  plan,
+  loadAtEnd,
 }: {
+  sequential: Record<string, number>;
+  plan: string;
+  loadAtEnd: string;
   info: ReturnType<typeof machine>;
   seed: Awaited<ReturnType<typeof seedBenchDatabase>>;
   results: LoadFigures[];
@@ -285,6 +318,18 @@ function writeResults({
     '| scenario | req/s | p50 ms | p95 ms | p99 ms | errors | non-2xx |',
     '| --- | ---: | ---: | ---: | ---: | ---: | ---: |',
     ...results.map((r) => `| ${r.name}${r.note ? ` (${r.note})` : ''} | ${r.requestsPerSecond.toFixed(0)} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.errors} | ${r.non2xx} |`),
+    '',
+    `Load average at the end: ${loadAtEnd}.`,
+    '',
+    'One request at a time (one client, median of 9, no queueing):',
+    '',
+    ...Object.entries(sequential).map(([name, ms]) => `- ${name}: ${ms.toFixed(0)} ms`),
+    '',
+    'Plan of the list query (EXPLAIN; the same for Whorl and the baseline):',
+    '',
+    '```',
+    plan.trim(),
+    '```',
     '',
     ratio !== null ? `Whorl/baseline throughput on the list: **${ratio.toFixed(2)}×**.` : 'Whorl/baseline: findings list not available yet.',
     '',

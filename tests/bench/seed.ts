@@ -2,7 +2,9 @@
 // bulk protocol (conn.batch: one round trip per few thousand rows). Record
 // snapshots come from the real machines (pure transitions), the trail is a valid
 // hash chain computed with the server's own hashEntry, technique verdicts come
-// from the checklist engine. Tables that do not exist yet are skipped and reported.
+// from the checklist engine. Ids are given explicitly: bulk inserts may leave
+// gaps in auto-increment values, and rows refer to each other by id.
+// Tables that do not exist yet are skipped and reported.
 import mariadb from 'mariadb';
 import { createHash } from 'node:crypto';
 import { hashEntry } from '../../server/services/trail.service';
@@ -80,10 +82,10 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
 
   // People and areas.
   const passwordHash = await hashPassword(BENCH_PASSWORD);
-  await conn.batch('INSERT INTO areas (code, name, created_at, updated_at) VALUES (?, ?, ?, ?)', [
-    ['WBS', 'Wheel and Brake Shop', ts, ts],
-    ['STR', 'Structures Bay', ts, ts],
-    ['RCV', 'Receiving Inspection', ts, ts],
+  await conn.batch('INSERT INTO areas (id, code, name, created_at, updated_at) VALUES (?, ?, ?, ?, ?)', [
+    [1, 'WBS', 'Wheel and Brake Shop', ts, ts],
+    [2, 'STR', 'Structures Bay', ts, ts],
+    [3, 'RCV', 'Receiving Inspection', ts, ts],
   ]);
   const people: { email: string; roles: Role[]; areaId: number | null }[] = [
     { email: 'admin@bench.example', roles: ['admin'], areaId: null },
@@ -98,8 +100,8 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
   await insertBatched(
     conn,
     'users',
-    ['email', 'display_name', 'password_hash', 'area_id', 'active', 'failed_sign_ins', 'mail_digest', 'version', 'created_at', 'updated_at'],
-    people.map((person, i) => [person.email, `Bench Person ${i}`, passwordHash, person.areaId, 1, 0, 0, 0, ts, ts]),
+    ['id', 'email', 'display_name', 'password_hash', 'area_id', 'active', 'failed_sign_ins', 'mail_digest', 'version', 'created_at', 'updated_at'],
+    people.map((person, i) => [i + 1, person.email, `Bench Person ${i}`, passwordHash, person.areaId, 1, 0, 0, 0, ts, ts]),
   );
   await insertBatched(
     conn,
@@ -121,14 +123,14 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
       const content = { ...base, code: `BT-${String(i).padStart(5, '0')}`, revision: 'A' };
       const output = evaluateParsedTechnique(content);
       const failed = [...new Set(output.results.filter((result) => result.status === 'fail').map((result) => result.rule))];
-      techniques.push([content.code, content.title ?? `Technique ${i}`, (i % 3) + 1, 3, ts, ts]);
-      revisions.push([i, 1, 'A', i % 5 === 0 ? 'draft' : 'approved', JSON.stringify(content), output.verdict, JSON.stringify(failed), 3, 3, i % 5 === 0 ? null : 2, i % 5 === 0 ? null : ts, null, 0, ts, ts]);
+      techniques.push([i, content.code, content.title ?? `Technique ${i}`, (i % 3) + 1, 3, ts, ts]);
+      revisions.push([i, i, 1, 'A', i % 5 === 0 ? 'draft' : 'approved', JSON.stringify(content), output.verdict, JSON.stringify(failed), 3, 3, i % 5 === 0 ? null : 2, i % 5 === 0 ? null : ts, null, 0, ts, ts]);
     }
-    await insertBatched(conn, 'techniques', ['code', 'title', 'area_id', 'created_by_id', 'created_at', 'updated_at'], techniques);
+    await insertBatched(conn, 'techniques', ['id', 'code', 'title', 'area_id', 'created_by_id', 'created_at', 'updated_at'], techniques);
     await insertBatched(
       conn,
       'technique_revisions',
-      ['technique_id', 'seq', 'revision', 'state', 'content', 'verdict', 'failed_rules', 'created_by_id', 'updated_by_id', 'approved_by_id', 'approved_at', 'superseded_at', 'version', 'created_at', 'updated_at'],
+      ['id', 'technique_id', 'seq', 'revision', 'state', 'content', 'verdict', 'failed_rules', 'created_by_id', 'updated_by_id', 'approved_by_id', 'approved_at', 'superseded_at', 'version', 'created_at', 'updated_at'],
       revisions,
     );
     counts.techniques = VOLUME.techniques;
@@ -143,12 +145,12 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
     );
     const audits: unknown[][] = [];
     for (let i = 1; i <= VOLUME.audits; i += 1) {
-      audits.push([`Audit ${i} of ET techniques`, 'Written practice and customer specification', (i % 3) + 1, auditorIds[i % auditorIds.length], '2026-01-10', '2026-01-20', '[]', 'fieldwork', auditSnapshot, recordMachines.audit.version, 0, 4, ts, ts]);
+      audits.push([i, `Audit ${i} of ET techniques`, 'Written practice and customer specification', (i % 3) + 1, auditorIds[i % auditorIds.length], '2026-01-10', '2026-01-20', '[]', 'fieldwork', auditSnapshot, recordMachines.audit.version, 0, 4, ts, ts]);
     }
     await insertBatched(
       conn,
       'audits',
-      ['title', 'criteria', 'area_id', 'lead_auditor_id', 'planned_start', 'planned_end', 'scope', 'state', 'snapshot', 'machine_version', 'version', 'created_by_id', 'created_at', 'updated_at'],
+      ['id', 'title', 'criteria', 'area_id', 'lead_auditor_id', 'planned_start', 'planned_end', 'scope', 'state', 'snapshot', 'machine_version', 'version', 'created_by_id', 'created_at', 'updated_at'],
       audits,
     );
     counts.audits = VOLUME.audits;
@@ -172,7 +174,7 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
       const created = utc(new Date(now.getTime() - (VOLUME.findings - i) * 60_000));
       const cls = (template.context.class as string | null) ?? null;
       findings.push([
-        `F-${YEAR}-${String(i).padStart(4, '0')}`, ((i - 1) % VOLUME.audits) + 1, (i % VOLUME.techniques) + 1, `BT-${String((i % VOLUME.techniques) + 1).padStart(5, '0')}`,
+        i, `F-${YEAR}-${String(i).padStart(4, '0')}`, ((i - 1) % VOLUME.audits) + 1, (i % VOLUME.techniques) + 1, `BT-${String((i % VOLUME.techniques) + 1).padStart(5, '0')}`,
         `Checklist rule failed on technique ${i % VOLUME.techniques}`, rules[i % rules.length], 'The technique must cover every expected flaw orientation',
         'Checklist output of the audit', cls, template.context.containmentDescription ?? null, dueDate,
         auditorIds[i % auditorIds.length], (i % 3) + 1, template.state, template.json, recordMachines.finding.version, 3, created, created,
@@ -184,20 +186,20 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
       if (i <= 300) ownerActionIds.push(i);
       const ctx = actionTemplate.context;
       actions.push([
-        `CA-${YEAR}-${String(i).padStart(4, '0')}`, i, ownerId, dueDate, null, ctx.method ?? null, ctx.rootCause ?? null, JSON.stringify(ctx.plan ?? []),
+        i, `CA-${YEAR}-${String(i).padStart(4, '0')}`, i, ownerId, dueDate, null, ctx.method ?? null, ctx.rootCause ?? null, JSON.stringify(ctx.plan ?? []),
         2, actionTemplate.state, actionTemplate.json, recordMachines.action.version, 1, created, created,
       ]);
     }
     await insertBatched(
       conn,
       'findings',
-      ['number', 'audit_id', 'technique_id', 'technique_code', 'title', 'rule', 'requirement', 'objective_evidence', 'class', 'containment', 'due_date', 'author_id', 'area_id', 'state', 'snapshot', 'machine_version', 'version', 'created_at', 'updated_at'],
+      ['id', 'number', 'audit_id', 'technique_id', 'technique_code', 'title', 'rule', 'requirement', 'objective_evidence', 'class', 'containment', 'due_date', 'author_id', 'area_id', 'state', 'snapshot', 'machine_version', 'version', 'created_at', 'updated_at'],
       findings,
     );
     await insertBatched(
       conn,
       'corrective_actions',
-      ['number', 'finding_id', 'owner_id', 'due_date', 'pending_extension', 'method', 'root_cause', 'plan', 'created_by_id', 'state', 'snapshot', 'machine_version', 'version', 'created_at', 'updated_at'],
+      ['id', 'number', 'finding_id', 'owner_id', 'due_date', 'pending_extension', 'method', 'root_cause', 'plan', 'created_by_id', 'state', 'snapshot', 'machine_version', 'version', 'created_at', 'updated_at'],
       actions,
     );
     if (tables.has('record_numbers')) {
@@ -215,12 +217,12 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
     const rows: unknown[][] = [];
     for (let i = 1; i <= VOLUME.evidence; i += 1) {
       const sha = createHash('sha256').update(`evidence ${i}`).digest('hex');
-      rows.push(['action', (i % VOLUME.actions) + 1, `eddy-current-report-${i}.pdf`, 'application/pdf', 40_000 + i, sha, `sha256/${sha.slice(0, 2)}/${sha.slice(2, 4)}/${sha}`, ts, 3, 0, ts, ts]);
+      rows.push([i, 'action', (i % VOLUME.actions) + 1, `eddy-current-report-${i}.pdf`, 'application/pdf', 40_000 + i, sha, `sha256/${sha.slice(0, 2)}/${sha.slice(2, 4)}/${sha}`, ts, 3, 0, ts, ts]);
     }
     await insertBatched(
       conn,
       'evidence_files',
-      ['record_type', 'record_id', 'original_name', 'media_type', 'size_bytes', 'sha256', 'storage_key', 'stored_at', 'uploaded_by_id', 'version', 'created_at', 'updated_at'],
+      ['id', 'record_type', 'record_id', 'original_name', 'media_type', 'size_bytes', 'sha256', 'storage_key', 'stored_at', 'uploaded_by_id', 'version', 'created_at', 'updated_at'],
       rows,
     );
     counts.evidence_files = VOLUME.evidence;
