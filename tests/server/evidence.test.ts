@@ -4,7 +4,7 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, writeFileSync
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
 import request from 'supertest';
-import { Certification, EvidenceFile, TrailEntry } from '../../server/models';
+import { Certification, EvidenceFile, Technique, TrailEntry } from '../../server/models';
 import { addEvidenceFromBytes, countEvidence, sweepEvidenceTemp } from '../../server/services/evidence.service';
 import { defineAbilityFor } from '../../shared/abilities';
 import { createTestContext, makeUser, signIn, signedInAs, type TestContext } from '../helpers/test-app';
@@ -237,6 +237,18 @@ describe('evidence uploads', () => {
       expect((await staff.agent.get(`/api/evidence/${id}/download`)).status).toBe(200);
     }
     expect(filesUnder(tempDir)).toEqual([]);
+  });
+
+  it('when evidence is added to a technique, then a Level 3 may and a technician may not', async () => {
+    const level3 = await signedInAs(context, ['level3']);
+    const technique = await Technique.create({ code: `TST-${Date.now()}`, title: 'Bore scan, rotating probe', areaId: null, createdById: level3.user.id });
+    const csv = Buffer.from('notch_depth_mm,amplitude_v\n0.2,0.8\n0.5,2.1\n');
+    const allowed = await level3.post('/api/evidence').field('recordType', 'technique').field('recordId', String(technique.id)).attach('file', csv, { filename: 'demonstration.csv' });
+    expect(allowed.status).toBe(201);
+    const technician = await signedInAs(context, ['technician']);
+    const refused = await technician.post('/api/evidence').field('recordType', 'technique').field('recordId', String(technique.id)).attach('file', csv, { filename: 'demonstration.csv' });
+    expect(refused.status).toBe(403);
+    expect(await countEvidence('technique', technique.id)).toBe(1);
   });
 
   it('when a stored byte is flipped on disk, then the download is refused and an integrity failure is on the trail', async () => {
