@@ -164,4 +164,21 @@ describe('the workflow journey in the browser', () => {
     }
     await quality.screenshot({ path: screenshotPath('findings-overdue'), fullPage: true });
   });
+
+  it('when the auditor raises a finding by hand during fieldwork, then it opens raised with what they wrote', async () => {
+    const auditor = await as('auditor@tarnbrook.example');
+    await auditor.goto(`${inject('baseUrl')}/audits?state=fieldwork`);
+    await auditor.getByRole('link', { name: 'Structures Bay: second-layer lap-joint technique' }).click();
+    await auditor.getByRole('button', { name: 'Raise a finding by hand' }).click();
+    const dialog = auditor.getByRole('dialog');
+    await dialog.getByLabel('Title').fill('Lift-off compensation not described');
+    await dialog.getByLabel('Rule or clause not met').fill('QP-ET-01 clause 6.2');
+    await dialog.getByLabel('Requirement').fill('The technique states how lift-off is compensated over paint.');
+    await dialog.getByLabel('Objective evidence').fill('Section 5 of TAC-ET-031 rev A names no paint-thickness correction.');
+    await dialog.getByLabel('Technique (optional)').selectOption('TAC-ET-031');
+    await dialog.getByRole('button', { name: 'Raise the finding' }).click();
+    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: Lift-off compensation not described$/ }).waitFor();
+    expect(await auditor.getByRole('region', { name: 'Nonconformity' }).getByText('QP-ET-01 clause 6.2').count()).toBe(1);
+    await auditor.getByText('Raised', { exact: true }).first().waitFor();
+  });
 });

@@ -1,4 +1,7 @@
+import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { Dialog } from '../../../components/ui/dialog';
+import { RaiseFindingForm } from './raise-finding-form';
 import { Button } from '../../../components/ui/button';
 import { Caution } from '../../../components/ui/caution';
 import { ErrorNotice, Loading, PageHeader } from '../../../components/ui/states';
@@ -14,6 +17,7 @@ import { ClassBadge, StateBadge } from './state-badge';
 export function AuditPage({ id }: { id: number }) {
   const audit = useAudit(id);
   const run = useRunChecklist(id);
+  const [raising, setRaising] = useState(false);
   if (audit.isLoading) return <Loading what="Loading the audit" />;
   if (audit.error || !audit.data) return <ErrorNotice error={audit.error} title="The audit could not be loaded" />;
   const a = audit.data;
@@ -24,7 +28,19 @@ export function AuditPage({ id }: { id: number }) {
         <StateBadge state={a.state} />
       </PageHeader>
       <div className="flex flex-wrap items-start justify-between gap-2">
+        <div className="flex flex-wrap gap-2">
         <EventActions kind="audit" record={a} />
+        {a.canRaiseFinding && (
+          <Button variant="secondary" onClick={() => setRaising(true)}>
+            Raise a finding by hand
+          </Button>
+        )}
+      </div>
+      {raising && (
+        <Dialog open title="Raise a finding" onClose={() => setRaising(false)}>
+          <RaiseFindingForm auditId={a.id} techniqueCodes={a.scope.map((item) => item.code)} onCancel={() => setRaising(false)} />
+        </Dialog>
+      )}
         <RecordExportLinks kind="audit" id={a.id} />
       </div>
       <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
