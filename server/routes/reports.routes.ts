@@ -12,6 +12,7 @@ import {
   exportCertification,
   exportEquipment,
   exportFinding,
+  exportTechnique,
   type ExportEnvelope,
   type Exporter,
 } from '../services/record-export.service';
@@ -73,6 +74,12 @@ export function reportRoutes(deps: AppDeps): Router {
   router.get('/equipment/:id/export.json', requires.can('export', 'Equipment'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     sendJson(res, `equipment-${id}.json`, await exportEquipment(deps, exporterOf(res), id));
+  });
+
+  router.get('/techniques/:id/export.json', requires.can('export', 'Technique'), async (req, res) => {
+    const { id } = parseParams(IdParamSchema, req);
+    const exported = await exportTechnique(deps, exporterOf(res), id);
+    sendJson(res, `technique-${safe(exported.content.record.code)}.json`, exported);
   });
 
   return router;

@@ -16,6 +16,8 @@ import { getAction } from './actions.service';
 import { listEvidence } from './evidence.service';
 import { getCertification } from './certification.service';
 import { getEquipment } from './equipment.service';
+import { loadTechniqueView } from './technique.service';
+import { getTechniqueLinks } from './technique-links.service';
 import type { TrailEntryView } from '../../shared/schemas/trail';
 import type { EvidenceRecordType, EvidenceView } from '../../shared/schemas/evidence';
 import type { ActionDetailView, AuditDetailView, FindingDetailView } from '../../shared/schemas/workflow';
@@ -167,4 +169,14 @@ export async function exportEquipment(deps: AppDeps, exporter: Exporter, id: num
   const item = await getEquipment(deps, id);
   const trail = await trailOf([{ recordType: 'equipment', recordId: id }]);
   return envelope(deps, exporter, { recordType: 'equipment' as const, recordId: id, record: item, trail });
+}
+
+export async function exportTechnique(deps: AppDeps, exporter: Exporter, id: number) {
+  const technique = withoutPerUserFields(await loadTechniqueView(exporter.ability, id));
+  const [links, trail, evidence] = await Promise.all([
+    getTechniqueLinks(deps, id),
+    trailOf([{ recordType: 'technique', recordId: id }]),
+    evidenceOf(deps, exporter, 'technique', id),
+  ]);
+  return envelope(deps, exporter, { recordType: 'technique' as const, recordId: id, record: technique, registerLinks: links, evidence, trail });
 }

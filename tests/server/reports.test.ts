@@ -116,5 +116,31 @@ describe('reports and exports', () => {
     // The hash is the record's, not the viewer's: the accountable manager gets the same one.
     const again = await cast.accountable.agent.get(`/api/findings/${finding.id}/export.json`);
     expect(again.body.sha256).toBe(findingHash);
+
+    // Actions export on their own too, trail included.
+    const actionJson = await cast.quality.agent.get(`/api/actions/${action.id}/export.json`);
+    expect(actionJson.status).toBe(200);
+    expect(actionJson.body.content.trail.map((entry: { event: string }) => entry.event)).toContain('VERIFY');
+  });
+});
+
+describe('technique export', () => {
+  it('when a technique is exported, then the JSON holds its revisions, register links and trail; a technician may not export', async () => {
+    const { DEMO_TECHNIQUES } = await import('../../shared/domain/demo-techniques');
+    const { signedInAs } = await import('../helpers/test-app');
+    const level3 = await signedInAs(context, ['level3']);
+    const code = `TX-${Date.now().toString(36).toUpperCase()}`;
+    const created = await level3.post('/api/techniques').send({ technique: { ...DEMO_TECHNIQUES[0], code } });
+    expect(created.status).toBe(201);
+    const quality = await signedInAs(context, ['quality_manager']);
+    const exported = await quality.agent.get(`/api/techniques/${created.body.id}/export.json`);
+    expect(exported.status).toBe(200);
+    expect(exported.headers['content-disposition']).toBe(`attachment; filename="technique-${code}.json"`);
+    expect(exported.body.content.record.code).toBe(code);
+    expect(exported.body.content.registerLinks).toEqual({ techniqueId: created.body.id, equipment: [], performers: [] });
+    expect(exported.body.content.trail.length).toBeGreaterThan(0);
+    expect(exported.body.sha256).toBe(createHash('sha256').update(canonicalize(exported.body.content)!).digest('hex'));
+    const technician = await signedInAs(context, ['technician']);
+    expect((await technician.agent.get(`/api/techniques/${created.body.id}/export.json`)).status).toBe(403);
   });
 });
