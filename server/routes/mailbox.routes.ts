@@ -5,7 +5,7 @@ import { parseParams, parseQuery } from '../lib/validate';
 import { IdParamSchema } from '../../shared/schemas/common';
 import { MailboxListQuerySchema, type CaughtMailSummary, type CaughtMailView } from '../../shared/schemas/mailbox';
 import type { AppDeps } from '../app-deps';
-import { CaughtMail } from '../models';
+import { CaughtMail, OutboxMessage } from '../models';
 import { notFound } from '../lib/app-error';
 import { Op } from 'sequelize';
 
@@ -35,7 +35,14 @@ export function mailboxRoutes(deps: AppDeps): Router {
       limit: query.pageSize,
       offset: (query.page - 1) * query.pageSize,
     });
-    res.json({ items: rows.map(summary), total: count, catching: !deps.config.mail.smtpUrl });
+    // What is still waiting in the outbox, so an admin sees a mail server that refuses.
+    const [pending, retrying, lastFailure] = await Promise.all([
+      OutboxMessage.count({ where: { status: 'pending' } }),
+      OutboxMessage.count({ where: { status: 'pending', attempts: { [Op.gt]: 0 } } }),
+      OutboxMessage.findOne({ where: { status: 'pending', attempts: { [Op.gt]: 0 } }, order: [['updatedAt', 'DESC']], attributes: ['lastError', 'updatedAt'] }),
+    ]);
+    const outbox = { pending, retrying, lastError: lastFailure?.lastError ?? null };
+    res.json({ items: rows.map(summary), total: count, catching: !deps.config.mail.smtpUrl, outbox });
   });
 
   router.get('/mailbox/:id', requires.can('read', 'Mailbox'), async (req, res) => {

@@ -229,11 +229,15 @@ describe('e-mail through the outbox', () => {
   });
 
   it('when an admin opens the mailbox, then the caught messages are listed and readable; other roles get 403', async () => {
+    const cast = await makeCast(context);
+    const { action } = await findingWithAction(cast);
+    await waitFor(async () => (await caughtFor(cast.owner.user.email)).length > 0, { what: 'a caught message' });
     const admin = await signedInAs(context, ['admin']);
-    const list = await admin.agent.get('/api/mailbox?pageSize=5');
+    const list = await admin.agent.get(`/api/mailbox?pageSize=5&q=${encodeURIComponent(action.number)}`);
     expect(list.status).toBe(200);
     expect(list.body.total).toBeGreaterThan(0);
     expect(list.body.catching).toBe(true);
+    expect(list.body.outbox).toMatchObject({ pending: expect.any(Number), retrying: expect.any(Number) });
     const one = await admin.agent.get(`/api/mailbox/${list.body.items[0].id}`);
     expect(one.status).toBe(200);
     expect(one.body.text).toContain('Hello');

@@ -3,7 +3,10 @@ import { api } from '../../../lib/api-client';
 import type { ListResponse } from '../../../../shared/schemas/common';
 import type { CaughtMailSummary, CaughtMailView } from '../../../../shared/schemas/mailbox';
 
-export type MailboxList = ListResponse<CaughtMailSummary> & { catching: boolean };
+export type MailboxList = ListResponse<CaughtMailSummary> & {
+  catching: boolean;
+  outbox: { pending: number; retrying: number; lastError: string | null };
+};
 
 export const getMailboxQueryOptions = (query: Record<string, string | number>) =>
   queryOptions({

@@ -59,6 +59,13 @@ export function MailboxView() {
           A real mail server is configured (SMTP_URL), so messages go out to people's inboxes and nothing new is caught here.
         </p>
       )}
+      {mailbox.data && mailbox.data.outbox.retrying > 0 && (
+        <p role="status" className="rounded-md border border-warn/40 bg-amber-50 px-3 py-2 text-sm text-ink">
+          {mailbox.data.outbox.retrying} {mailbox.data.outbox.retrying === 1 ? 'message is' : 'messages are'} waiting because the mail server
+          refused or could not be reached; Whorl keeps retrying and nothing is lost.
+          {mailbox.data.outbox.lastError ? <> Last error: <code className="text-xs">{mailbox.data.outbox.lastError}</code></> : null}
+        </p>
+      )}
       <label className="flex flex-col gap-1 text-sm font-bold">
         Search subject or recipient
         <input
