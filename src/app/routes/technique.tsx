@@ -4,6 +4,7 @@ import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom'
 import { Button } from '../../components/ui/button';
 import { Caution } from '../../components/ui/caution';
 import { ErrorNotice, Loading, PageHeader } from '../../components/ui/states';
+import { RecordExportLinks } from '../../components/ui/export-links';
 import { useStartNewRevision, useTechnique, useTechniqueChecklist } from '../../features/techniques/api/techniques';
 import { StateBadge } from '../../features/techniques/components/badges';
 import { RevisionHistory } from '../../features/techniques/components/revision-history';
@@ -49,6 +50,7 @@ export function Component() {
         <Button variant="secondary" onClick={() => downloadTechniqueFile(revision.content, techniqueFileName(view.code, revision.revision))}>
           Export revision {revision.revision} as JSON
         </Button>
+        <RecordExportLinks kind="technique" id={view.id} />
       </PageHeader>
       <p className="-mt-3 flex flex-wrap items-center gap-2 text-sm text-ink-soft">
         {view.areaName ?? 'No particular area'} · revision {revision.revision} shown <StateBadge state={revision.state} />

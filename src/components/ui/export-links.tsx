@@ -24,6 +24,7 @@ const RECORDS = {
   action: { subject: 'CorrectiveAction', base: 'actions', pdf: null, pdfLabel: null },
   certification: { subject: 'Certification', base: 'certifications', pdf: null, pdfLabel: null },
   equipment: { subject: 'Equipment', base: 'equipment', pdf: null, pdfLabel: null },
+  technique: { subject: 'Technique', base: 'techniques', pdf: null, pdfLabel: null },
 } as const satisfies Record<string, { subject: SubjectName; base: string; pdf: string | null; pdfLabel: string | null }>;
 
 /** PDF (audits and findings) and JSON (every record, trail included) downloads of one record. */
