@@ -297,7 +297,7 @@ function writeResults({
 }) {
   const whorlList = results.find((r) => r.name.startsWith('Whorl: findings list'));
   const baselineList = results.find((r) => r.name.startsWith('Baseline'));
-  const ratio = whorlList && baselineList ? whorlList.requestsPerSecond / baselineList.requestsPerSecond : null;
+  const ratio = whorlList && baselineList && baselineList.requestsPerSecond > 0 ? whorlList.requestsPerSecond / baselineList.requestsPerSecond : null;
   const reads = results.filter((r) => r.name.startsWith('Whorl') && !r.name.includes('transition'));
   const verifyMedian = [...verifications].sort((a, b) => a.ms - b.ms)[1];
   const typical = engine[0];
