@@ -29,7 +29,7 @@ async function main() {
   if (applied.length) console.log(`Applied ${applied.length} migration(s).`);
   if (await isDatabaseEmpty(sequelize)) {
     console.log('Empty database: loading the Tarnbrook Aero Components demo scenario…');
-    await seedDemo(sequelize);
+    await seedDemo(sequelize, { config });
   }
   await ensureClientBuilt();
 

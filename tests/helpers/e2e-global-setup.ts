@@ -23,13 +23,13 @@ const ROOT = path.resolve(import.meta.dirname, '../..');
 export default async function setup(project: TestProject) {
   // A build of its own per run, so a concurrent `npm start` or another run never sees a half-written dist/.
   const clientDir = path.join(ROOT, '.data', `e2e-client-${process.pid}-${Date.now()}`);
+  const evidenceDir = path.join(ROOT, '.data', `e2e-evidence-${process.pid}-${Date.now()}`);
   await build({ root: ROOT, logLevel: 'error', build: { outDir: clientDir, emptyOutDir: true } });
 
   const database = await startTestDatabase('e2e');
   const sequelize = createSequelize({ url: database.instance.url, poolMax: 20 });
   let running: Awaited<ReturnType<typeof startServer>> | undefined;
   try {
-    await seedDemo(sequelize);
     const config = loadConfig({
       NODE_ENV: 'test',
       HOST: '127.0.0.1',
@@ -39,12 +39,15 @@ export default async function setup(project: TestProject) {
       LOG_LEVEL: 'error',
       SIGNIN_RATE_LIMIT: '1000',
       SCHEDULER: 'false',
+      STORAGE_DIR: evidenceDir,
     });
+    await seedDemo(sequelize, { config });
     running = await startServer(config, { sequelize, clientDir });
   } catch (error) {
     await sequelize.close().catch(() => undefined);
     await database.stop();
     rmSync(clientDir, { recursive: true, force: true });
+    rmSync(evidenceDir, { recursive: true, force: true });
     throw error;
   }
 
@@ -58,5 +61,6 @@ export default async function setup(project: TestProject) {
     await running?.close();
     await database.stop();
     rmSync(clientDir, { recursive: true, force: true });
+    rmSync(evidenceDir, { recursive: true, force: true });
   };
 }

@@ -7,6 +7,7 @@ import { seedTechniques } from './techniques.seed';
 import { seedRegisters } from './registers.seed';
 import { seedWorkflows } from './workflows.seed';
 import type { SeedContext, SeedStep } from './seed-context';
+import type { AppConfig } from '../../config/env';
 
 export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedWorkflows];
 
@@ -15,9 +16,12 @@ export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   return (await User.count()) === 0;
 }
 
-export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<SeedContext> {
+export async function seedDemo(
+  sequelize: Sequelize,
+  { now = new Date(), config }: { now?: Date; config?: AppConfig } = {},
+): Promise<SeedContext> {
   initModels(sequelize);
-  const context: SeedContext = { sequelize, now, users: {}, areas: {}, refs: {} };
+  const context: SeedContext = { sequelize, now, users: {}, areas: {}, refs: {}, config };
   for (const step of seedSteps) await step(context);
   return context;
 }

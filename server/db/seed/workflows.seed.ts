@@ -76,7 +76,7 @@ type Driver = ReturnType<typeof makeDriver>;
  * the record is consistent, but a download reports the bytes missing.
  */
 async function seedEvidenceRow(driver: Driver, context: SeedContext, actionId: number, ownerKey: UserKey, name: string, text: string) {
-  const config = (context as SeedContext & { config?: AppConfig }).config;
+  const { config } = context;
   const bytes = Buffer.from(text, 'utf8');
   if (config) {
     const { actor, ability } = driver.as(ownerKey);
