@@ -11,7 +11,8 @@ export const getEvidenceQueryOptions = (recordType: EvidenceRecordType, recordId
     queryFn: () => api.get<ListResponse<EvidenceView>>('/evidence', { recordType, recordId }),
   });
 
-export const useEvidence = (recordType: EvidenceRecordType, recordId: number) => useQuery(getEvidenceQueryOptions(recordType, recordId));
+export const useEvidence = (recordType: EvidenceRecordType, recordId: number, { enabled = true }: { enabled?: boolean } = {}) =>
+  useQuery({ ...getEvidenceQueryOptions(recordType, recordId), enabled });
 
 export const evidenceDownloadUrl = (id: number) => `/api/evidence/${id}/download`;
 export const evidencePreviewUrl = (id: number) => `/api/evidence/${id}/preview`;

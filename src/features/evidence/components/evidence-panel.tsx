@@ -30,7 +30,8 @@ let uploadCounter = 0;
 export function EvidencePanel({ recordType, recordId, recordOwnerId = null, readOnly = false, title = 'Evidence', onChange }: EvidencePanelProps) {
   const ability = useAbility();
   const queryClient = useQueryClient();
-  const evidence = useEvidence(recordType, recordId);
+  const canRead = ability.can('read', subject('Evidence', { recordType, recordId, recordOwnerId }));
+  const evidence = useEvidence(recordType, recordId, { enabled: canRead });
   const supersede = useSupersedeEvidence(recordType, recordId);
   const [uploads, setUploads] = useState<QueuedUpload[]>([]);
   const [dragging, setDragging] = useState(false);
@@ -69,7 +70,7 @@ export function EvidencePanel({ recordType, recordId, recordOwnerId = null, read
     if (files.length) send(files);
   };
 
-  if (!ability.can('read', subject('Evidence', { recordType, recordId, recordOwnerId }))) {
+  if (!canRead) {
     return (
       <section className="rounded-lg border border-ink/10 bg-white px-4 py-3 text-sm text-ink-soft">
         <h2 className="mb-1 text-lg font-bold text-ink">{title}</h2>
