@@ -74,6 +74,8 @@ export async function assignAction(deps: AppDeps, actor: EventActor, input: Acti
           state: 'assigned',
           snapshot: persistSnapshot(correctiveActionMachine, initial.snapshot),
           machineVersion: CORRECTIVE_ACTION_MACHINE_VERSION,
+          // From the app's clock, like every other date of the record (tests and demo data move it).
+          createdAt: now,
         },
         { transaction },
       );

@@ -72,6 +72,8 @@ export async function createAudit(deps: AppDeps, actor: EventActor, ability: App
         state: 'planned',
         snapshot: persistSnapshot(auditMachine, snapshot),
         machineVersion: AUDIT_MACHINE_VERSION,
+        // From the app's clock, like every other date of the record (tests and demo data move it).
+        createdAt: deps.clock.now(),
       },
       { transaction },
     );

@@ -116,6 +116,8 @@ export async function raiseFinding(
           state: 'raised',
           snapshot: persistSnapshot(findingMachine, snapshot),
           machineVersion: FINDING_MACHINE_VERSION,
+          // From the app's clock, like every other date of the record (tests and demo data move it).
+          createdAt: now,
         },
         { transaction },
       );
@@ -167,7 +169,9 @@ export async function listFindings(
   if (query.overdue === 'false') and.push({ [Op.not]: overdueClause(todayIso(now)) });
   if (query.q) {
     const like = `%${query.q}%`;
-    and.push({ [Op.or]: [{ number: { [Op.like]: like } }, { title: { [Op.like]: like } }, { requirement: { [Op.like]: like } }] });
+    and.push({
+      [Op.or]: [{ number: { [Op.like]: like } }, { title: { [Op.like]: like } }, { requirement: { [Op.like]: like } }, { rule: { [Op.like]: like } }],
+    });
   }
   const sort = parseSort(query.sort, SORTABLE, '-number');
   // Findings without a due date sort last either way.
