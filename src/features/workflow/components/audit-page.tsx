@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { Dialog } from '../../../components/ui/dialog';
 import { RaiseFindingForm } from './raise-finding-form';
@@ -13,8 +13,10 @@ import { Facts, Panel } from './record-layout';
 import { RecordTimeline } from './record-timeline';
 import { SignatureBlock } from './signature-block';
 import { ClassBadge, StateBadge } from './state-badge';
+import type { AuditDetailView } from '../../../../shared/schemas/workflow';
 
-export function AuditPage({ id }: { id: number }) {
+/** An audit's page. `evidence` is the slot for the evidence panel, passed in by the route like the finding's. */
+export function AuditPage({ id, evidence }: { id: number; evidence?: (audit: AuditDetailView) => ReactNode }) {
   const audit = useAudit(id);
   const run = useRunChecklist(id);
   const [raising, setRaising] = useState(false);
@@ -85,6 +87,7 @@ export function AuditPage({ id }: { id: number }) {
               })}
             </div>
           </Panel>
+          {evidence ? evidence(a) : null}
         </div>
         <div className="flex flex-col gap-4">
           <Panel title="Findings">
