@@ -309,7 +309,7 @@ function writeResults({
     `Produced by \`npm run bench\` (tests/bench/run.ts) on ${new Date().toISOString()}; each load ${SECONDS} s after a 2 s warm-up, ${CONNECTIONS} connections, autocannon on loopback.`,
     '',
     process.env.BENCH_EXTRA_INDEXES === '1' ? '**With the proposed extra indexes findings (state, number) and findings (number).**\n' : '',
-    `Machine: ${info.nproc} cores (${info.cpu}); memory ${info.memory}; Node ${info.node}; MariaDB ${info.mariadb}; load average at the start ${info.load} (other work was running on the machine).`,
+    `Machine: ${info.nproc} cores (${info.cpu}); memory ${info.memory}; Node ${info.node}; MariaDB ${info.mariadb}; load average at the start ${info.load}${Number(info.load.split(' ')[0]) > Number(info.nproc) ? ' (other work was running on the machine)' : ''}.`,
     '',
     `Seeded in **${seed.seconds.toFixed(1)} s**: ${Object.entries(seed.counts).map(([k, v]) => `${v.toLocaleString('en')} ${k}`).join(', ')}${seed.skipped.length ? `; not seeded (table missing): ${seed.skipped.join(', ')}` : ''}.`,
     '',
