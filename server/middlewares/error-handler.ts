@@ -1,7 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { ForbiddenError } from '@casl/ability';
-import { OptimisticLockError, UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
+import { ForeignKeyConstraintError, OptimisticLockError, UniqueConstraintError, ValidationError as SequelizeValidationError } from 'sequelize';
 import { AppError } from '../lib/app-error';
 import { isDatabaseUnavailable } from '../lib/database-errors';
 import type { Logger } from '../lib/logger';
@@ -27,6 +27,15 @@ function toAppError(error: unknown): AppError {
   }
   if (error instanceof OptimisticLockError) {
     return new AppError('This record was changed by someone else; reload it and try again', { status: 409, code: 'stale_version' });
+  }
+  if (error instanceof ForeignKeyConstraintError) {
+    // A reference to a record that does not exist: the client's input, not the server, is at fault.
+    const fields = Array.isArray(error.fields) ? error.fields : Object.keys(error.fields ?? {});
+    return new AppError('A referenced record does not exist', {
+      status: 400,
+      code: 'invalid_input',
+      details: (fields.length ? fields : ['(body)']).map((path) => ({ path, message: 'no such record' })),
+    });
   }
   if (error instanceof UniqueConstraintError) {
     const fields = Object.keys(error.fields ?? {});

@@ -5,11 +5,18 @@ import { IdParamSchema } from '../../shared/schemas/common';
 import { AreaCreateSchema, AreaUpdateSchema, type AreaView } from '../../shared/schemas/area';
 import { Area, User } from '../models';
 import { appendTrail } from '../services/trail.service';
-import { notFound } from '../lib/app-error';
+import { AppError, notFound } from '../lib/app-error';
 import type { AppDeps } from '../app-deps';
 
 function presentArea(area: Area & { lead?: User | null }): AreaView {
   return { id: area.id, code: area.code, name: area.name, leadUserId: area.leadUserId, leadName: area.lead?.displayName ?? null };
+}
+
+async function requireLeadUser(leadUserId: number | null | undefined) {
+  if (leadUserId == null) return;
+  if (!(await User.findByPk(leadUserId, { attributes: ['id'] }))) {
+    throw new AppError('Some body fields are not valid', { status: 400, code: 'invalid_input', details: [{ path: 'leadUserId', message: 'no such user' }] });
+  }
 }
 
 export function areaRoutes({ sequelize }: AppDeps): Router {
@@ -23,6 +30,7 @@ export function areaRoutes({ sequelize }: AppDeps): Router {
 
   router.post('/areas', requires.can('create', 'Area'), async (req, res) => {
     const input = parseBody(AreaCreateSchema, req);
+    await requireLeadUser(input.leadUserId);
     const area = await sequelize.transaction(async (transaction) => {
       const created = await Area.create(input, { transaction });
       await appendTrail(sequelize, transaction, {
@@ -40,6 +48,7 @@ export function areaRoutes({ sequelize }: AppDeps): Router {
   router.patch('/areas/:id', requires.can('update', 'Area'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const input = parseBody(AreaUpdateSchema, req);
+    await requireLeadUser(input.leadUserId);
     await sequelize.transaction(async (transaction) => {
       const area = await Area.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!area) throw notFound('Area');

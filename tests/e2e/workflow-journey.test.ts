@@ -157,11 +157,14 @@ describe('the workflow journey in the browser', () => {
     const all = await table.locator('tbody tr').count();
     await quality.getByLabel('Overdue only').click();
     await quality.waitForURL(/overdue=true/);
-    await expect.poll(() => table.locator('tbody tr').count()).toBeLessThan(all);
+    // The previous page stays on screen until the filtered one arrives: wait for the filtered rows themselves.
     const overdueRows = table.locator('tbody tr');
-    for (let index = 0; index < (await overdueRows.count()); index += 1) {
-      expect(await overdueRows.nth(index).textContent()).toContain('overdue');
-    }
+    await expect
+      .poll(async () => {
+        const texts = await overdueRows.allTextContents();
+        return texts.length > 0 && texts.length < all && texts.every((text) => text.includes('overdue'));
+      })
+      .toBe(true);
     await quality.screenshot({ path: screenshotPath('findings-overdue'), fullPage: true });
   });
 
