@@ -13,6 +13,7 @@ import { TechniqueAnalysis } from '../../features/techniques/components/techniqu
 import { ApproveButton } from '../../features/techniques/components/approve-button';
 import { downloadTechniqueFile, techniqueFileName } from '../../features/techniques/components/technique-file';
 import { TechniqueTimeline } from '../../features/techniques/components/technique-timeline';
+import { EvidencePanel } from '../../features/evidence/components/evidence-panel';
 
 export function Component() {
   const id = Number(useParams().id);
@@ -68,6 +69,7 @@ export function Component() {
       <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
         <div className="flex min-w-0 flex-col gap-4">
           <TechniqueSummary technique={revision.content} />
+          <EvidencePanel recordType="technique" recordId={view.id} />
           <TechniqueTimeline id={view.id} />
         </div>
         <div className="min-w-0">
