@@ -7,6 +7,7 @@ import { inject } from 'vitest';
 import { createApp } from '../../server/app';
 import { loadConfig, type AppConfig } from '../../server/config/env';
 import { createSequelize } from '../../server/db/sequelize';
+import { migrate } from '../../server/db/migrator';
 import { createLogger } from '../../server/lib/logger';
 import type { AppDeps } from '../../server/app-deps';
 import type { Sequelize } from 'sequelize';
@@ -57,7 +58,7 @@ function acquireSequelize(url: string): { sequelize: Sequelize; release(): Promi
       },
     };
   }
-  const own = createSequelize({ url, poolMax: 5 });
+  const own = createSequelize({ url, poolMax: 20 });
   return {
     sequelize: own,
     async release() {
@@ -152,4 +153,25 @@ export function rootSql(sql: string): string {
 
 export function databaseName(): string {
   return new URL(inject('databaseUrl')).pathname.slice(1);
+}
+
+/**
+ * A database of its own on the run's MariaDB server, migrated, for a test file
+ * whose work scans whole tables (schedulers, outbox senders) and must not see
+ * the records every other file leaves behind.
+ */
+export async function createIsolatedDatabase(label: string): Promise<string> {
+  const shared = new URL(inject('databaseUrl'));
+  const name = `${shared.pathname.slice(1)}_${label.replace(/[^a-z0-9_]/gi, '')}_${randomBytes(3).toString('hex')}`;
+  const user = decodeURIComponent(shared.username);
+  rootSql(`CREATE DATABASE \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci; GRANT ALL PRIVILEGES ON \`${name}\`.* TO '${user}'@'127.0.0.1'`);
+  const url = new URL(shared.toString());
+  url.pathname = `/${name}`;
+  const sequelize = createSequelize({ url: url.toString() });
+  try {
+    await migrate(sequelize);
+  } finally {
+    await sequelize.close();
+  }
+  return url.toString();
 }

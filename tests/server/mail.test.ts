@@ -5,14 +5,16 @@ import { createMailTransport } from '../../server/mail/transport';
 import { mailEffectSink } from '../../server/mail/mail-effects';
 import { SCHEDULED_JOBS, createScheduler } from '../../server/jobs';
 import type { MailRuntime } from '../../server/mail';
-import { createTestContext, signedInAs, type TestContext } from '../helpers/test-app';
+import { createIsolatedDatabase, createTestContext, signedInAs, type TestContext } from '../helpers/test-app';
 import { auditWithFailedRun, expectOk, findingAwaitingSignoff, findingWithAction, inDays, makeCast, planAudit, send } from '../helpers/workflow';
 import { caughtFor, makeJobsDue, outboxFor, startTestMail, waitFor } from '../helpers/mail';
 
 let context: TestContext;
 let mail: MailRuntime;
 beforeAll(async () => {
-  context = createTestContext();
+  // Schedulers and senders work through every due row: on the run's shared database they would
+  // also meet the records (and queued messages) of every other test file.
+  context = createTestContext({ DATABASE_URL: await createIsolatedDatabase('mail') });
   mail = await startTestMail(context);
 });
 afterAll(async () => {
