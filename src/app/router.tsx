@@ -19,6 +19,9 @@ export const router = createBrowserRouter([
   {
     path: '/',
     loader: requireSession,
+    // The session does not depend on a list's filters: changing them re-runs no loader.
+    shouldRevalidate: ({ currentUrl, nextUrl, defaultShouldRevalidate }) =>
+      currentUrl.pathname !== nextUrl.pathname ? defaultShouldRevalidate : false,
     lazy: () => import('./routes/signed-in-layout'),
     children: [
       { index: true, lazy: () => import('./routes/home') },

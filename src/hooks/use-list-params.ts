@@ -23,8 +23,10 @@ export function useListParams(defaults: { sort?: string; pageSize?: number } = {
   const update = useCallback(
     (changes: Record<string, string | number | null | undefined>, { resetPage = true } = {}) => {
       setParams(
-        (current) => {
-          const next = new URLSearchParams(current);
+        () => {
+          // From the address bar itself, not the params of the last render: two changes in quick
+          // succession (a filter, then another) must both land.
+          const next = new URLSearchParams(window.location.search);
           for (const [key, value] of Object.entries(changes)) {
             if (value === null || value === undefined || value === '') next.delete(key);
             else next.set(key, String(value));
