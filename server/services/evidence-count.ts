@@ -4,6 +4,9 @@
 import { Op, type Transaction } from 'sequelize';
 import { EvidenceFile } from '../models';
 
+/** Current evidence: not superseded, and its bytes are in storage (the move after commit has happened). */
+export const CURRENT_EVIDENCE = { supersededAt: null, storedAt: { [Op.ne]: null } };
+
 export async function countCurrentEvidence(
   transaction: Transaction | undefined,
   recordType: 'audit' | 'finding' | 'action',
@@ -12,7 +15,7 @@ export async function countCurrentEvidence(
   const counts = new Map<number, number>(recordIds.map((id) => [id, 0]));
   if (!recordIds.length) return counts;
   const rows = (await EvidenceFile.count({
-    where: { recordType, recordId: { [Op.in]: recordIds }, supersededAt: null },
+    where: { recordType, recordId: { [Op.in]: recordIds }, ...CURRENT_EVIDENCE },
     group: ['recordId'],
     transaction,
   })) as unknown as Array<{ recordId: number; count: number }>;

@@ -3,6 +3,7 @@
 // bytes → owning record and role rule checked → row + trail entry committed →
 // file copied to its content-addressed key → temporary file removed.
 // Nothing is ever overwritten or deleted; a file can only be marked superseded.
+import { CURRENT_EVIDENCE } from './evidence-count';
 import { createHash, randomUUID } from 'node:crypto';
 import { mkdir, readdir, stat, unlink, writeFile } from 'node:fs/promises';
 import path from 'node:path';
@@ -39,7 +40,7 @@ const withPeople = [
  * sets facts.evidenceCount from this.
  */
 export async function countEvidence(recordType: EvidenceRecordType, recordId: number, transaction?: Transaction): Promise<number> {
-  return EvidenceFile.count({ where: { recordType, recordId, supersededAt: null, storedAt: { [Op.ne]: null } }, transaction });
+  return EvidenceFile.count({ where: { recordType, recordId, ...CURRENT_EVIDENCE }, transaction });
 }
 
 function ownerSubject(owner: EvidenceOwnerRecord, uploadedById?: number) {
