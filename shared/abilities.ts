@@ -21,9 +21,12 @@ export type SubjectName =
   | 'Equipment'
   | 'Dashboard'
   | 'Report'
+  | 'Inspection'
   | 'all';
 
 export type CrudAction = 'manage' | 'read' | 'create' | 'update' | 'approve' | 'unlock' | 'verify' | 'supersede' | 'export';
+/** Extent of condition (run, raise linked findings) and impact (scope, containment decisions) on a finding. */
+export type ImpactAction = 'assess_extent' | 'decide_impact';
 
 export type AuditEvent = 'START_FIELDWORK' | 'FINISH_FIELDWORK' | 'ISSUE' | 'CLOSE' | 'CANCEL';
 export type FindingEvent =
@@ -46,7 +49,7 @@ export type ActionEvent =
   | 'APPROVE_EXTENSION'
   | 'REJECT_EXTENSION';
 
-export type AppAction = CrudAction | AuditEvent | FindingEvent | ActionEvent;
+export type AppAction = CrudAction | ImpactAction | AuditEvent | FindingEvent | ActionEvent;
 // Conditions are written against record fields (ownerId, authorId, …) that the
 // server puts on plain objects with subject(); CASL's generic typing of those
 // fields adds nothing here, so the ability is typed by action and subject name only.
@@ -74,6 +77,7 @@ const READABLE: SubjectName[] = [
   'Report',
   'Area',
   'Policy',
+  'Inspection',
 ];
 
 const OWNER_ACTION_EVENTS: ActionEvent[] = ['START', 'SUBMIT_PLAN', 'SUBMIT', 'REQUEST_EXTENSION'];
@@ -97,6 +101,8 @@ function auditorRules({ can }: Builder, user: AbilityUser) {
 function qualityManagerRules({ can }: Builder) {
   can(['ISSUE', 'CLOSE', 'CANCEL'], 'Audit');
   can(['WITHDRAW', 'CLASSIFY', 'RECORD_CONTAINMENT', 'CONFIRM_EFFECTIVE', 'NOT_EFFECTIVE'], 'Finding');
+  can(['assess_extent', 'decide_impact'], 'Finding');
+  can(['create', 'update'], 'Inspection');
   can('create', 'CorrectiveAction');
   can(['APPROVE_PLAN', 'RETURN_PLAN', 'VERIFY', 'RETURN', 'APPROVE_EXTENSION', 'REJECT_EXTENSION'], 'CorrectiveAction');
   can(['create', 'update'], ['Certification', 'Equipment']);
@@ -113,6 +119,9 @@ function accountableManagerRules({ can }: Builder) {
 }
 
 function actionOwnerRules({ can }: Builder, user: AbilityUser) {
+  // The people who perform inspections record them; a correction is theirs or quality's.
+  can('create', 'Inspection');
+  can('update', 'Inspection', { createdById: user.id });
   can(OWNER_ACTION_EVENTS, 'CorrectiveAction', { ownerId: user.id });
   // Evidence subjects carry the owning record's type and its owner (recordOwnerId).
   can('create', 'Evidence', { recordType: 'action', recordOwnerId: user.id });
@@ -124,6 +133,7 @@ function level3Rules(builder: Builder, user: AbilityUser) {
   can('update', 'Technique', { state: 'draft' });
   can('approve', 'Technique', { state: 'draft' });
   can('create', 'Evidence', { recordType: 'technique' });
+  can(['create', 'update'], 'Inspection');
   actionOwnerRules(builder, user);
 }
 

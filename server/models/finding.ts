@@ -31,6 +31,11 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
   declare closureNote: string | null;
   declare withdrawReason: string | null;
   declare closedAt: Date | null;
+  /** The finding whose extent-of-condition run this one was raised from. */
+  declare extentOfId: CreationOptional<number | null>;
+  declare proposedClass: CreationOptional<FindingClass | null>;
+  /** The first day the impact worksheet lists inspections from; null: each affected revision's approval. */
+  declare impactSince: CreationOptional<string | null>;
   declare authorId: number;
   declare areaId: number;
   declare state: FindingState;
@@ -44,6 +49,8 @@ export class Finding extends Model<InferAttributes<Finding>, InferCreationAttrib
   declare area?: NonAttribute<Area>;
   declare audit?: NonAttribute<Audit | null>;
   declare action?: NonAttribute<CorrectiveAction | null>;
+  declare extentOf?: NonAttribute<Finding | null>;
+  declare extentMembers?: NonAttribute<Finding[]>;
 }
 
 export function initFinding(sequelize: Sequelize) {
@@ -71,6 +78,9 @@ export function initFinding(sequelize: Sequelize) {
       closureNote: { type: DataTypes.TEXT, allowNull: true },
       withdrawReason: { type: DataTypes.TEXT, allowNull: true },
       closedAt: { type: DataTypes.DATE(3), allowNull: true },
+      extentOfId: { type: DataTypes.INTEGER, allowNull: true },
+      proposedClass: { type: DataTypes.STRING(16), allowNull: true },
+      impactSince: { type: DataTypes.DATEONLY, allowNull: true },
       authorId: { type: DataTypes.INTEGER, allowNull: false },
       areaId: { type: DataTypes.INTEGER, allowNull: false },
       state: { type: DataTypes.STRING(32), allowNull: false },

@@ -22,6 +22,9 @@ import { PolicyHead, PolicySetting, initPolicySetting } from './policy-setting';
 import { EvidenceFile, initEvidenceFile } from './evidence-file';
 import { OutboxMessage, initOutboxMessage, type OutboxStatus } from './outbox-message';
 import { CaughtMail, initCaughtMail } from './caught-mail';
+import { Inspection, initInspection } from './inspection';
+import { ExtentRun, initExtentRun } from './extent-run';
+import { ContainmentDecision, initContainmentDecision } from './containment-decision';
 
 export { Area, User, RoleAssignment, TrailEntry, Session };
 export { Certification, Equipment, ReferenceNotch, TechniqueEquipment, TechniquePerformer };
@@ -30,6 +33,7 @@ export { EvidenceFile, OutboxMessage, CaughtMail };
 export type { TrailChanges, OutboxStatus };
 export { Audit, ChecklistRun, Finding, CorrectiveAction, Signature };
 export type { AuditScopeTechnique };
+export { Inspection, ExtentRun, ContainmentDecision };
 
 let initialisedFor: Sequelize | undefined;
 
@@ -74,6 +78,7 @@ export function initModels(sequelize: Sequelize): void {
   EvidenceFile.belongsTo(User, { as: 'supersededBy', foreignKey: 'supersededById' });
 
   initWorkflowModels();
+  initImpactModels();
 }
 
 /** Audits, checklist runs, findings, corrective actions and signatures (the workflow records). */
@@ -95,4 +100,23 @@ function initWorkflowModels(): void {
   Finding.hasOne(CorrectiveAction, { as: 'action', foreignKey: 'findingId' });
   CorrectiveAction.belongsTo(Finding, { as: 'finding', foreignKey: 'findingId' });
   CorrectiveAction.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
+}
+
+/** Inspections performed with technique revisions, extent runs and containment decisions. */
+function initImpactModels(): void {
+  const sequelize = initialisedFor!;
+  initInspection(sequelize);
+  initExtentRun(sequelize);
+  initContainmentDecision(sequelize);
+  Inspection.belongsTo(Technique, { as: 'technique', foreignKey: 'techniqueId' });
+  Inspection.belongsTo(TechniqueRevision, { as: 'techniqueRevision', foreignKey: 'techniqueRevisionId' });
+  Inspection.belongsTo(User, { as: 'inspector', foreignKey: 'inspectorId' });
+  Inspection.belongsTo(Equipment, { as: 'instrument', foreignKey: 'instrumentId' });
+  Inspection.belongsTo(Equipment, { as: 'probe', foreignKey: 'probeId' });
+  Inspection.belongsTo(Equipment, { as: 'referenceStandard', foreignKey: 'referenceStandardId' });
+  ExtentRun.belongsTo(User, { as: 'runBy', foreignKey: 'runById' });
+  ContainmentDecision.belongsTo(User, { as: 'decidedBy', foreignKey: 'decidedById' });
+  ContainmentDecision.belongsTo(Inspection, { as: 'inspection', foreignKey: 'inspectionId' });
+  Finding.belongsTo(Finding, { as: 'extentOf', foreignKey: 'extentOfId' });
+  Finding.hasMany(Finding, { as: 'extentMembers', foreignKey: 'extentOfId' });
 }

@@ -48,7 +48,7 @@ export {
   issuePath,
 } from './evaluate';
 export type { TechniqueIssue, ParseResult, SafeEvaluateResult, UncheckedEvaluateOptions } from './evaluate';
-export { RULE_IDS } from './types';
+export { RULE_IDS, CHECKLIST_ENGINE_VERSION } from './types';
 export type {
   RuleId,
   RuleStatus,

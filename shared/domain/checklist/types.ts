@@ -19,6 +19,13 @@ export const RULE_IDS = [
   'equipment',
 ] as const;
 
+/**
+ * The version of the rules' logic. Raise it when a rule's logic or a default
+ * changes, so a recorded run (an extent-of-condition run, say) tells which
+ * logic produced its list.
+ */
+export const CHECKLIST_ENGINE_VERSION = '1.0';
+
 export type RuleId = (typeof RULE_IDS)[number];
 export type RuleStatus = 'pass' | 'fail' | 'warn' | 'not_applicable';
 export type Verdict = 'conforms' | 'does-not-conform';
