@@ -18,7 +18,8 @@ import { auditRoutes } from './audits.routes';
 import { findingRoutes } from './findings.routes';
 import { actionRoutes } from './actions.routes';
 import { homeRoutes } from './home.routes';
+import { inspectionRoutes } from './inspections.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes];

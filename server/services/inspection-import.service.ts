@@ -1,0 +1,298 @@
+// CSV import of the inspection register: parse (UTF-8, optional BOM, RFC 4180
+// quoting), resolve the names in each row to records, run the form's own checks,
+// and write every row in one transaction only when the whole file is valid.
+// Rows are numbered as a spreadsheet shows them: the header is row 1.
+import { parse } from 'csv-parse/sync';
+import { CsvError } from 'csv-parse';
+import { Op, type Transaction } from 'sequelize';
+import type { AppDeps } from '../app-deps';
+import { Equipment, Inspection, Technique, TechniqueRevision, User } from '../models';
+import { AppError } from '../lib/app-error';
+import { appendTrail } from './trail.service';
+import { inspectionRuleErrors, loadInspectionFacts } from './inspection-rules';
+import {
+  INSPECTION_IMPORT_COLUMNS,
+  INSPECTION_IMPORT_MAX_ROWS,
+  INSPECTION_RESULTS,
+  INSPECTION_RESULT_LABELS,
+  InspectionFieldsSchema,
+  type InspectionImportError,
+  type InspectionImportHeader,
+  type InspectionImportPreview,
+  type InspectionImportResult,
+  type InspectionImportRow,
+  type InspectionInput,
+  type InspectionResult,
+} from '../../shared/schemas/inspection';
+
+type Cells = Record<InspectionImportHeader, string>;
+
+/** Which column each field of InspectionInput comes from, to name the column in an error. */
+const COLUMN_OF_FIELD: Record<keyof InspectionInput, InspectionImportHeader> = {
+  performedOn: 'date',
+  techniqueRevisionId: 'revision',
+  partNumber: 'part number',
+  serialNumber: 'serial number',
+  workOrder: 'work order',
+  customer: 'customer',
+  inspectorId: 'inspector e-mail',
+  result: 'result',
+  instrumentId: 'instrument serial',
+  probeId: 'probe serial',
+  referenceStandardId: 'reference standard serial',
+  notes: 'notes',
+};
+
+const normaliseHeader = (value: string) => value.toLowerCase().replace(/[^a-z0-9]/g, '');
+const HEADER_BY_KEY = new Map(INSPECTION_IMPORT_COLUMNS.map((column) => [normaliseHeader(column.header), column.header]));
+const RESULT_BY_KEY = new Map<string, InspectionResult>(
+  INSPECTION_RESULTS.flatMap((result) => [
+    [normaliseHeader(result), result],
+    [normaliseHeader(INSPECTION_RESULT_LABELS[result]), result],
+  ]),
+);
+const EQUIPMENT_COLUMNS = [
+  ['instrument serial', 'instrument', 'instrumentId'],
+  ['probe serial', 'probe', 'probeId'],
+  ['reference standard serial', 'reference-standard', 'referenceStandardId'],
+] as const;
+
+const fileError = (message: string): InspectionImportPreview => ({ rows: [], errors: [{ row: 1, field: '(file)', message }], valid: false });
+
+/** UTF-8 only: a file saved in a legacy code page would turn "Kühlwerk" into mojibake silently. */
+function decode(buffer: Buffer): string | null {
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
+  } catch {
+    return null;
+  }
+}
+
+/** Comma by default; a header line with semicolons and no commas (a common spreadsheet export in Europe) reads with semicolons. */
+function detectDelimiter(text: string): string {
+  const firstLine = text.replace(/^\uFEFF/, '').split(/\r?\n/, 1)[0] ?? '';
+  return !firstLine.includes(',') && firstLine.includes(';') ? ';' : ',';
+}
+
+interface ParsedFile {
+  header: (InspectionImportHeader | null)[];
+  records: { row: number; cells: Cells }[];
+  errors: InspectionImportError[];
+}
+
+function parseFile(buffer: Buffer): ParsedFile | InspectionImportPreview {
+  const text = decode(buffer);
+  if (text === null) return fileError('The file is not UTF-8 text. Save it as “CSV UTF-8” and try again.');
+  let raw: string[][];
+  try {
+    raw = parse(text, { bom: true, delimiter: detectDelimiter(text), relax_column_count: true, skip_empty_lines: false });
+  } catch (error) {
+    if (error instanceof CsvError) {
+      const row = typeof (error as { records?: number }).records === 'number' ? (error as unknown as { records: number }).records + 1 : 1;
+      return { rows: [], errors: [{ row, field: '(file)', message: `The file cannot be read as CSV: ${error.message}` }], valid: false };
+    }
+    throw error;
+  }
+  const isBlank = (record: string[]) => record.every((cell) => cell.trim() === '');
+  if (raw.length === 0 || isBlank(raw[0])) {
+    return fileError(`The file is empty. The first row must hold the column headers: ${INSPECTION_IMPORT_COLUMNS.map((c) => c.header).join(', ')}.`);
+  }
+  const errors: InspectionImportError[] = [];
+  const header = raw[0].map((cell) => HEADER_BY_KEY.get(normaliseHeader(cell)) ?? null);
+  raw[0].forEach((cell, index) => {
+    if (!header[index] && cell.trim() !== '') errors.push({ row: 1, field: cell.trim(), message: `unknown column “${cell.trim()}”` });
+    if (header[index] && header.indexOf(header[index]) !== index) errors.push({ row: 1, field: header[index]!, message: 'this column appears twice' });
+  });
+  for (const column of INSPECTION_IMPORT_COLUMNS) {
+    if (column.required && !header.includes(column.header)) errors.push({ row: 1, field: column.header, message: `the column “${column.header}” is missing` });
+  }
+  const records: ParsedFile['records'] = [];
+  raw.slice(1).forEach((record, index) => {
+    const row = index + 2;
+    if (isBlank(record)) return;
+    if (record.length > header.length && !isBlank(record.slice(header.length))) {
+      errors.push({ row, field: '(row)', message: `this row has ${record.length} cells; the header has ${header.length}` });
+    }
+    const cells = Object.fromEntries(INSPECTION_IMPORT_COLUMNS.map((column) => [column.header, ''])) as Cells;
+    header.forEach((name, position) => {
+      if (name) cells[name] = (record[position] ?? '').trim();
+    });
+    records.push({ row, cells });
+  });
+  if (records.length === 0 && errors.length === 0) return fileError('The file has a header row but no inspections.');
+  if (records.length > INSPECTION_IMPORT_MAX_ROWS) {
+    return fileError(`The file has ${records.length} inspections; import at most ${INSPECTION_IMPORT_MAX_ROWS} at a time (split the file).`);
+  }
+  return { header, records, errors };
+}
+
+/** Everything the file's rows name, loaded once: revisions by technique code and letter, people by e-mail, equipment by serial. */
+async function loadLookups(records: ParsedFile['records'], transaction?: Transaction) {
+  const codes = [...new Set(records.map((r) => r.cells['technique code']).filter(Boolean))];
+  const emails = [...new Set(records.map((r) => r.cells['inspector e-mail'].toLowerCase()).filter(Boolean))];
+  const serials = [...new Set(records.flatMap((r) => EQUIPMENT_COLUMNS.map(([column]) => r.cells[column])).filter(Boolean))];
+  const [revisions, users, equipment] = await Promise.all([
+    codes.length
+      ? TechniqueRevision.findAll({
+          attributes: ['id', 'revision', 'approvedAt'],
+          include: [{ model: Technique, as: 'technique', attributes: ['code'], where: { code: { [Op.in]: codes } } }],
+          transaction,
+        })
+      : [],
+    emails.length ? User.findAll({ attributes: ['id', 'email', 'displayName', 'active'], where: { email: { [Op.in]: emails } }, transaction }) : [],
+    serials.length ? Equipment.findAll({ attributes: ['id', 'kind', 'serialNumber'], where: { serialNumber: { [Op.in]: serials } }, transaction }) : [],
+  ]);
+  const key = (...parts: string[]) => parts.map((part) => part.toLowerCase()).join('\u0000');
+  const techniqueCodes = new Set(revisions.map((r) => r.technique!.code.toLowerCase()));
+  return {
+    techniqueExists: (code: string) => techniqueCodes.has(code.toLowerCase()),
+    revisionOf: (code: string, letter: string) => revisions.find((r) => key(r.technique!.code, r.revision) === key(code, letter)) ?? null,
+    userOf: (email: string) => users.find((u) => u.email.toLowerCase() === email.toLowerCase()) ?? null,
+    equipmentOf: (serial: string) => equipment.filter((e) => e.serialNumber.toLowerCase() === serial.toLowerCase()),
+  };
+}
+
+interface CheckedFile {
+  preview: InspectionImportPreview;
+  inputs: { row: number; input: InspectionInput }[];
+}
+
+async function checkFile(deps: AppDeps, buffer: Buffer, transaction?: Transaction): Promise<CheckedFile> {
+  const parsed = parseFile(buffer);
+  if (!('records' in parsed)) return { preview: parsed, inputs: [] };
+  const errors = [...parsed.errors];
+  const lookups = await loadLookups(parsed.records, transaction);
+  const rows: InspectionImportRow[] = [];
+  const candidates: { row: number; input: InspectionInput }[] = [];
+
+  for (const { row, cells } of parsed.records) {
+    const rowErrors: InspectionImportError[] = [];
+    const fail = (field: string, message: string) => rowErrors.push({ row, field, message });
+
+    const code = cells['technique code'];
+    const letter = cells.revision;
+    const revision = code && letter ? lookups.revisionOf(code, letter) : null;
+    if (!code) fail('technique code', 'enter the technique code');
+    else if (!lookups.techniqueExists(code)) fail('technique code', `no technique with the code “${code}”`);
+    else if (!letter) fail('revision', 'enter the revision');
+    else if (!revision) fail('revision', `technique ${code} has no revision “${letter}”`);
+
+    const email = cells['inspector e-mail'];
+    const user = email ? lookups.userOf(email) : null;
+    if (!email) fail('inspector e-mail', 'enter the inspector’s e-mail address');
+    else if (!user) fail('inspector e-mail', `no user with the e-mail address “${email}”`);
+
+    const resultText = cells.result;
+    const result = resultText ? (RESULT_BY_KEY.get(normaliseHeader(resultText)) ?? null) : null;
+    if (!resultText) fail('result', 'enter the result: accept, reject or indication recorded');
+    else if (!result) fail('result', `“${resultText}” is not a result: use accept, reject or indication recorded`);
+
+    const equipment: Record<(typeof EQUIPMENT_COLUMNS)[number][2], number | null> = { instrumentId: null, probeId: null, referenceStandardId: null };
+    const equipmentRefs: Record<(typeof EQUIPMENT_COLUMNS)[number][2], { serialNumber: string; id: number | null } | null> = {
+      instrumentId: null,
+      probeId: null,
+      referenceStandardId: null,
+    };
+    for (const [column, kind, field] of EQUIPMENT_COLUMNS) {
+      const serial = cells[column];
+      if (!serial) continue;
+      const matches = lookups.equipmentOf(serial);
+      const ofKind = matches.filter((item) => item.kind === kind);
+      if (matches.length === 0) fail(column, `no equipment with the serial number “${serial}”`);
+      else if (ofKind.length === 0) fail(column, `“${serial}” is registered as ${matches[0].kind.replace('-', ' ')}, not ${kind.replace('-', ' ')}`);
+      else if (ofKind.length > 1) fail(column, `more than one ${kind.replace('-', ' ')} has the serial number “${serial}”`);
+      else equipment[field] = ofKind[0].id;
+      equipmentRefs[field] = { serialNumber: serial, id: equipment[field] };
+    }
+
+    rows.push({
+      row,
+      performedOn: cells.date,
+      technique: { code, revision: letter, revisionId: revision?.id ?? null },
+      partNumber: cells['part number'],
+      serialNumber: cells['serial number'],
+      workOrder: cells['work order'],
+      customer: cells.customer,
+      inspector: { email, id: user?.id ?? null, name: user?.displayName ?? null },
+      result,
+      instrument: equipmentRefs.instrumentId,
+      probe: equipmentRefs.probeId,
+      referenceStandard: equipmentRefs.referenceStandardId,
+      notes: cells.notes || null,
+    });
+
+    // The form's schema over what the row resolved to; a field already reported above is not reported twice.
+    const parsedInput = InspectionFieldsSchema.safeParse({
+      techniqueRevisionId: revision?.id ?? 0,
+      performedOn: cells.date,
+      partNumber: cells['part number'],
+      serialNumber: cells['serial number'],
+      workOrder: cells['work order'],
+      customer: cells.customer,
+      inspectorId: user?.id ?? 0,
+      result: result ?? 'accept',
+      ...equipment,
+      notes: cells.notes || null,
+    });
+    const reported = new Set(rowErrors.map((error) => error.field));
+    // Stand-in ids for what did not resolve are already reported under their own column.
+    if (!revision) reported.add('revision');
+    if (!user) reported.add('inspector e-mail');
+    if (!result) reported.add('result');
+    if (!parsedInput.success) {
+      for (const issue of parsedInput.error.issues) {
+        const column = COLUMN_OF_FIELD[String(issue.path[0]) as keyof InspectionInput] ?? '(row)';
+        if (!reported.has(column)) fail(column, issue.message);
+        reported.add(column);
+      }
+    } else if (rowErrors.length === 0) {
+      candidates.push({ row, input: parsedInput.data });
+    }
+    errors.push(...rowErrors);
+  }
+
+  // The same checks as the form, for every row that got this far.
+  const facts = await loadInspectionFacts(candidates.map((c) => c.input), transaction);
+  const now = deps.clock.now();
+  for (const candidate of candidates) {
+    for (const error of inspectionRuleErrors(candidate.input, facts, now)) {
+      errors.push({ row: candidate.row, field: COLUMN_OF_FIELD[error.path], message: error.message });
+    }
+  }
+  errors.sort((a, b) => a.row - b.row);
+  const valid = errors.length === 0;
+  return { preview: { rows, errors, valid }, inputs: valid ? candidates : [] };
+}
+
+export async function previewInspectionImport(deps: AppDeps, buffer: Buffer): Promise<InspectionImportPreview> {
+  return (await checkFile(deps, buffer)).preview;
+}
+
+/** Writes the whole file or nothing: checked again inside the transaction that writes it. */
+export async function importInspections(deps: AppDeps, actorId: number, buffer: Buffer, fileName: string): Promise<InspectionImportResult> {
+  return deps.sequelize.transaction(async (transaction) => {
+    const { preview, inputs } = await checkFile(deps, buffer, transaction);
+    if (!preview.valid) {
+      throw new AppError(`The file has ${preview.errors.length} ${preview.errors.length === 1 ? 'error' : 'errors'}; nothing was imported`, {
+        status: 400,
+        code: 'invalid_import',
+        details: preview.errors,
+      });
+    }
+    const facts = await loadInspectionFacts(inputs.map((c) => c.input), transaction);
+    const at = deps.clock.now();
+    for (const { row, input } of inputs) {
+      const techniqueId = facts.revisions.get(input.techniqueRevisionId)!.techniqueId;
+      const created = await Inspection.create({ ...input, techniqueId, createdById: actorId }, { transaction });
+      await appendTrail(deps.sequelize, transaction, {
+        userId: actorId,
+        recordType: 'inspection',
+        recordId: created.id,
+        event: 'INSPECTION_IMPORTED',
+        changes: { ...input, techniqueId, source: { file: fileName, row } },
+        at,
+      });
+    }
+    return { written: inputs.length };
+  });
+}
