@@ -106,6 +106,8 @@ function parseFile(buffer: Buffer): ParsedFile | InspectionImportPreview {
   for (const column of INSPECTION_IMPORT_COLUMNS) {
     if (column.required && !header.includes(column.header)) errors.push({ row: 1, field: column.header, message: `the column “${column.header}” is missing` });
   }
+  // Rows cannot be judged against a header that is wrong: fix the header first.
+  if (errors.length) return { rows: [], errors, valid: false };
   const records: ParsedFile['records'] = [];
   raw.slice(1).forEach((record, index) => {
     const row = index + 2;
