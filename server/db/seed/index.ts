@@ -5,11 +5,12 @@ import { initModels, User } from '../../models';
 import { seedPeople } from './people.seed';
 import { seedTechniques } from './techniques.seed';
 import { seedRegisters } from './registers.seed';
+import { seedInspections } from './inspections.seed';
 import { seedWorkflows } from './workflows.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 import type { AppConfig } from '../../config/env';
 
-export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedWorkflows];
+export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedInspections, seedWorkflows];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);
