@@ -33,6 +33,7 @@ export function presentInspection(row: Inspection): InspectionView {
     probe: equipmentRef(row.probe),
     referenceStandard: equipmentRef(row.referenceStandard),
     notes: row.notes,
+    createdById: row.createdById,
     version: row.version,
     createdAt: row.createdAt.toISOString(),
   };

@@ -54,6 +54,8 @@ export interface InspectionView {
   probe: InspectionEquipmentRef | null;
   referenceStandard: InspectionEquipmentRef | null;
   notes: string | null;
+  /** Who recorded it: a technician may correct only their own rows. */
+  createdById: number;
   version: number;
   createdAt: string;
 }
