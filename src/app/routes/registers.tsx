@@ -4,11 +4,13 @@ import { CertificationsTable } from '../../features/registers/components/certifi
 import { EquipmentTable } from '../../features/registers/components/equipment-table';
 import { TechniqueLinksPanel } from '../../features/registers/components/technique-links-panel';
 import { EvidencePanel } from '../../features/evidence/components/evidence-panel';
+import { InspectionsPanel } from '../../features/inspections/components/inspections-panel';
 
 const TABS = [
   { id: 'certifications', label: 'Personnel certifications' },
   { id: 'equipment', label: 'Equipment' },
   { id: 'technique-links', label: 'Technique links' },
+  { id: 'inspections', label: 'Inspections' },
 ] as const;
 
 export function Component() {
@@ -49,6 +51,14 @@ export function Component() {
             Instruments, probes and reference standards must be within calibration when used. Quarantined and retired items are kept with their history.
           </p>
           <EquipmentTable />
+        </>
+      ) : tab === 'inspections' ? (
+        <>
+          <p className="mb-3 max-w-3xl text-sm text-ink-soft">
+            Every inspection performed to an approved technique revision: the part, the work order, who did it, the result and the equipment used. When a
+            finding puts a revision in doubt, this register says which parts to look at again.
+          </p>
+          <InspectionsPanel />
         </>
       ) : (
         <>
