@@ -1,6 +1,6 @@
 import { assertEvent, assign, setup } from 'xstate';
 import { z } from 'zod';
-import { isNonBlank } from './payload-checks';
+import { isCount, isNonBlank } from './payload-checks';
 
 /*
  * Finding (nonconformance) lifecycle: raised → in_review → withdrawn, or
@@ -29,6 +29,11 @@ import { isNonBlank } from './payload-checks';
  *   that the finding awaits their signature.
  * - `notifyFindingClosed` (CLOSE, CLASSIFY observation): mail the author and
  *   the audit's lead auditor (the audit may now be closable).
+ *
+ * Server facts: RECORD_CONTAINMENT carries `facts.undecidedInspectionCount`,
+ * the past inspections this (major) finding puts in doubt that have no
+ * containment decision yet. The server counts them inside the transaction and
+ * sets `facts` itself; containment cannot be recorded while any is undecided.
  *
  * Signed event: CLOSE. The server checks the password and records the
  * signature first; the machine never looks at `password`.
@@ -89,11 +94,15 @@ export type FindingEvent =
   | { type: 'SUBMIT' }
   | { type: 'WITHDRAW'; reason: string }
   | { type: 'CLASSIFY'; class: FindingClass; note?: string }
-  | { type: 'RECORD_CONTAINMENT'; description: string }
+  | { type: 'RECORD_CONTAINMENT'; description: string; facts: FindingContainmentFacts }
   | { type: 'ACTION_VERIFIED' }
   | { type: 'CONFIRM_EFFECTIVE'; note: string }
   | { type: 'NOT_EFFECTIVE'; reason: string }
   | { type: 'CLOSE'; password?: string };
+
+export interface FindingContainmentFacts {
+  undecidedInspectionCount: number;
+}
 
 /** A new finding starts raised with an empty context: it needs no input. */
 export type FindingInput = undefined;
@@ -116,8 +125,11 @@ export const findingMachine = setup({
     classifiedMinor: ({ event }) => event.type === 'CLASSIFY' && event.class === 'minor',
     observationWithNote: ({ event }) =>
       event.type === 'CLASSIFY' && event.class === 'observation' && isNonBlank(event.note),
-    hasContainmentDescription: ({ event }) =>
-      event.type === 'RECORD_CONTAINMENT' && isNonBlank(event.description),
+    containmentDescribedAndDecided: ({ event }) =>
+      event.type === 'RECORD_CONTAINMENT' &&
+      isNonBlank(event.description) &&
+      isCount(event.facts?.undecidedInspectionCount) &&
+      event.facts.undecidedInspectionCount === 0,
     hasEffectivenessNote: ({ event }) => event.type === 'CONFIRM_EFFECTIVE' && isNonBlank(event.note),
     hasNotEffectiveReason: ({ event }) => event.type === 'NOT_EFFECTIVE' && isNonBlank(event.reason),
   },
@@ -202,7 +214,7 @@ export const findingMachine = setup({
     containment: {
       on: {
         RECORD_CONTAINMENT: {
-          guard: 'hasContainmentDescription',
+          guard: 'containmentDescribedAndDecided',
           target: 'action_open',
           actions: ['storeContainment', 'notifyActionNeeded'],
         },

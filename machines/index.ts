@@ -32,6 +32,7 @@ import {
   FINDING_STATES,
   FindingContextSchema,
   findingMachine,
+  type FindingContainmentFacts,
 } from './finding.machine';
 import { auditProbeEvents, correctiveActionProbeEvents, findingProbeEvents } from './probe-events';
 import { allowedEventTypes, restoreSnapshot, type StoredSnapshot } from './runtime';
@@ -42,10 +43,10 @@ export * from './corrective-action.machine';
 export * from './probe-events';
 export * from './runtime';
 
-/** Facts the server computes per record kind for `allowedEvents` (a finding needs none). */
+/** Facts the server computes per record kind for `allowedEvents`. */
 export interface RecordFacts {
   audit: AuditCloseFacts;
-  finding: Record<string, never>;
+  finding: FindingContainmentFacts;
   action: CorrectiveActionSubmitFacts;
 }
 
@@ -76,8 +77,8 @@ export const recordMachines = {
     signedEvents: FINDING_SIGNED_EVENTS,
     serverEvents: FINDING_SERVER_EVENTS,
     contextSchema: FindingContextSchema,
-    allowedEvents: (snapshot: FindingSnapshot, _facts: RecordFacts['finding'] = {}) =>
-      allowedEventTypes(findingMachine, snapshot, findingProbeEvents(snapshot.context)),
+    allowedEvents: (snapshot: FindingSnapshot, facts: RecordFacts['finding']) =>
+      allowedEventTypes(findingMachine, snapshot, findingProbeEvents(snapshot.context, facts)),
   },
   action: {
     machine: correctiveActionMachine,

@@ -9,7 +9,7 @@ import type {
   CorrectiveActionEvent,
   CorrectiveActionSubmitFacts,
 } from './corrective-action.machine';
-import { FINDING_CLASSES, type FindingContext, type FindingEvent } from './finding.machine';
+import { FINDING_CLASSES, type FindingContainmentFacts, type FindingContext, type FindingEvent } from './finding.machine';
 import { isIsoDate, nextIsoDate } from './payload-checks';
 
 const PLACEHOLDER = 'probe';
@@ -25,12 +25,12 @@ export function auditProbeEvents(_context: AuditContext, facts: AuditCloseFacts)
 }
 
 /** CLASSIFY is probed once per class, so it is open if any class would be accepted. */
-export function findingProbeEvents(_context: FindingContext): FindingEvent[] {
+export function findingProbeEvents(_context: FindingContext, facts: FindingContainmentFacts): FindingEvent[] {
   return [
     { type: 'SUBMIT' },
     { type: 'WITHDRAW', reason: PLACEHOLDER },
     ...FINDING_CLASSES.map((findingClass): FindingEvent => ({ type: 'CLASSIFY', class: findingClass, note: PLACEHOLDER })),
-    { type: 'RECORD_CONTAINMENT', description: PLACEHOLDER },
+    { type: 'RECORD_CONTAINMENT', description: PLACEHOLDER, facts },
     { type: 'ACTION_VERIFIED' },
     { type: 'CONFIRM_EFFECTIVE', note: PLACEHOLDER },
     { type: 'NOT_EFFECTIVE', reason: PLACEHOLDER },

@@ -19,7 +19,8 @@ import { findingRoutes } from './findings.routes';
 import { actionRoutes } from './actions.routes';
 import { homeRoutes } from './home.routes';
 import { inspectionRoutes } from './inspections.routes';
+import { impactRoutes } from './impact.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes];

@@ -12,7 +12,7 @@ import type { FindingCreateInput, FindingDetailView, FindingListQuerySchema, Fin
 import type { RuleResult } from '../../shared/domain/checklist';
 import { appendTrail } from './trail.service';
 import { allocateRecordNumber } from './record-numbers.service';
-import { allowedEventsForUser } from './workflow/record-kinds';
+import { allowedEventsForUser, factsForMany } from './workflow/record-kinds';
 import { retryOnDeadlock } from './workflow/retry';
 import { presentFinding, presentFindingDetail } from '../presenters/finding.presenter';
 import { todayIso } from '../presenters/workflow-refs';
@@ -192,12 +192,13 @@ export async function listFindings(
     }),
     Finding.count({ where, include: query.owner ? [{ model: CorrectiveAction, as: 'action', attributes: [] }] : [] }),
   ]);
+  const facts = await factsForMany('finding', rows.map((row) => row.id), undefined, now);
   return {
     items: rows.map((finding) =>
       presentFinding(finding, {
         now,
         canAssignAction: mayAssignAction(ability, finding),
-        allowedEvents: allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, {}, ability),
+        allowedEvents: allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, facts.get(finding.id)!, ability),
       }),
     ),
     total: count,
@@ -207,11 +208,15 @@ export async function listFindings(
 export async function getFinding(deps: AppDeps, ability: AppAbility, id: number): Promise<FindingDetailView> {
   const finding = await Finding.findByPk(id, { include: findingIncludes });
   if (!finding) throw notFound('Finding');
-  const signatures = await Signature.findAll({ where: { recordType: 'finding', recordId: id }, order: [['signedAt', 'ASC']] });
+  const now = deps.clock.now();
+  const [signatures, facts] = await Promise.all([
+    Signature.findAll({ where: { recordType: 'finding', recordId: id }, order: [['signedAt', 'ASC']] }),
+    factsForMany('finding', [id], undefined, now),
+  ]);
   return presentFindingDetail(finding, {
-    now: deps.clock.now(),
+    now,
     signatures,
     canAssignAction: mayAssignAction(ability, finding),
-    allowedEvents: allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, {}, ability),
+    allowedEvents: allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, facts.get(id)!, ability),
   });
 }

@@ -50,7 +50,11 @@ export async function waitingOn(deps: AppDeps, actor: EventActor, ability: AppAb
     }),
     CorrectiveAction.findAll({ where: { state: { [Op.ne]: 'verified' } }, include: actionIncludes, order: [['dueDate', 'ASC']], limit: 500 }),
   ]);
-  const [auditCounts, actionFacts] = await Promise.all([openFindingCounts(audits.map((a) => a.id)), factsForMany('action', actions.map((a) => a.id))]);
+  const [auditCounts, actionFacts, findingFacts] = await Promise.all([
+    openFindingCounts(audits.map((a) => a.id)),
+    factsForMany('action', actions.map((a) => a.id)),
+    factsForMany('finding', findings.map((f) => f.id), undefined, now),
+  ]);
 
   for (const audit of audits) {
     const allowed = allowedEventsForUser('audit', audit, {}, { openFindingCount: auditCounts.get(audit.id) ?? 0 }, ability);
@@ -59,8 +63,12 @@ export async function waitingOn(deps: AppDeps, actor: EventActor, ability: AppAb
     items.push({ recordType: 'audit', id: audit.id, label: 'Audit', title: audit.title, state: audit.state, todo, dueDate: audit.plannedEnd, overdue: audit.plannedEnd < today && ['planned', 'fieldwork'].includes(audit.state) });
   }
   for (const finding of findings) {
-    const allowed = allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, {}, ability);
+    const fact = (findingFacts.get(finding.id) ?? { undecidedInspectionCount: 0 }) as { undecidedInspectionCount: number };
+    const allowed = allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, fact, ability);
     let todo = allowed.map((type) => FINDING_TODO[type]).find(Boolean);
+    if (!todo && finding.state === 'containment' && fact.undecidedInspectionCount > 0 && ability.can('decide_impact', 'Finding')) {
+      todo = `Decide the ${fact.undecidedInspectionCount} past inspection(s) in doubt, then record the containment`;
+    }
     if (!todo && finding.state === 'action_open' && !finding.action && ability.can('create', 'CorrectiveAction')) todo = 'Assign a corrective action';
     if (!todo) continue;
     const dueDate = finding.state === 'containment' ? finding.containmentDueDate : finding.dueDate;

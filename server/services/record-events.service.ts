@@ -203,8 +203,11 @@ export async function applyRecordEvent(
       }
 
       const snapshot = restore(kind, row);
-      const facts = (await factsForMany(kind, [row.id], transaction)).get(row.id) ?? {};
-      const needsFacts = (kind === 'audit' && input.type === 'CLOSE') || (kind === 'action' && input.type === 'SUBMIT');
+      const needsFacts =
+        (kind === 'audit' && input.type === 'CLOSE') ||
+        (kind === 'action' && input.type === 'SUBMIT') ||
+        (kind === 'finding' && input.type === 'RECORD_CONTAINMENT');
+      const facts = needsFacts ? ((await factsForMany(kind, [row.id], transaction, now)).get(row.id) ?? {}) : {};
       const event = machineEvent(input, needsFacts ? facts : {});
       const machine = recordMachines[kind].machine as AnyStateMachine;
       if (!applyEvent(machine, snapshot as never, event as never).changed) {

@@ -73,8 +73,8 @@ export const RaiseExtentFindingsSchema = z
       .array(z.number().int().positive(), { error: 'choose the techniques to raise findings against' })
       .min(1, 'choose at least one technique')
       .max(100, 'at most 100 techniques at once'),
+    /** null: propose the original finding's class. */
     proposedClass: z.enum(FINDING_CLASSES).nullable().default(null),
-    version: z.number().int().min(0),
   })
   .strict();
 export type RaiseExtentFindingsInput = z.infer<typeof RaiseExtentFindingsSchema>;

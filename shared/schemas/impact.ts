@@ -32,7 +32,8 @@ export interface ImpactGroup {
   customer: string;
   partNumber: string;
   count: number;
-  undecided: number;
+  /** Finding worksheets: rows without a decision; null on an equipment view, which records no decisions. */
+  undecided: number | null;
 }
 
 export interface ImpactRevision {

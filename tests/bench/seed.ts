@@ -158,7 +158,7 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
     const dueDate = day(new Date(now.getTime() + 60 * 86_400_000));
     const findingTemplates = [
       snapshotAfter('finding', [{ type: 'SUBMIT' }, { type: 'CLASSIFY', class: 'minor' }]),
-      snapshotAfter('finding', [{ type: 'SUBMIT' }, { type: 'CLASSIFY', class: 'major' }, { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined' }]),
+      snapshotAfter('finding', [{ type: 'SUBMIT' }, { type: 'CLASSIFY', class: 'major' }, { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined', facts: { undecidedInspectionCount: 0 } }]),
       snapshotAfter('finding', [{ type: 'SUBMIT' }, { type: 'CLASSIFY', class: 'minor' }, { type: 'ACTION_VERIFIED' }]),
     ];
     const actionTemplates = [

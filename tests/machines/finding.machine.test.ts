@@ -34,7 +34,7 @@ const validCases: Case[] = [
   },
   {
     name: 'RECORD_CONTAINMENT with a description',
-    event: { type: 'RECORD_CONTAINMENT', description: 'Wheels inspected since 3 March quarantined' },
+    event: { type: 'RECORD_CONTAINMENT', description: 'Wheels inspected since 3 March quarantined', facts: { undecidedInspectionCount: 0 } },
   },
   { name: 'ACTION_VERIFIED', event: { type: 'ACTION_VERIFIED' } },
   { name: 'CONFIRM_EFFECTIVE with a note', event: { type: 'CONFIRM_EFFECTIVE', note: 'No recurrence in 20 jobs' } },
@@ -49,8 +49,16 @@ const invalidCases: Case[] = [
   { name: 'CLASSIFY with an unknown class', event: { type: 'CLASSIFY', class: 'critical' } as unknown as FindingEvent },
   { name: 'CLASSIFY observation without a note', event: { type: 'CLASSIFY', class: 'observation' } },
   { name: 'CLASSIFY observation with a blank note', event: { type: 'CLASSIFY', class: 'observation', note: ' ' } },
-  { name: 'RECORD_CONTAINMENT with a blank description', event: { type: 'RECORD_CONTAINMENT', description: '\n' } },
-  { name: 'RECORD_CONTAINMENT without a description', event: { type: 'RECORD_CONTAINMENT' } as FindingEvent },
+  { name: 'RECORD_CONTAINMENT with a blank description', event: { type: 'RECORD_CONTAINMENT', description: '\n', facts: { undecidedInspectionCount: 0 } } },
+  { name: 'RECORD_CONTAINMENT without a description', event: { type: 'RECORD_CONTAINMENT', facts: { undecidedInspectionCount: 0 } } as FindingEvent },
+  {
+    name: 'RECORD_CONTAINMENT with undecided inspections',
+    event: { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined', facts: { undecidedInspectionCount: 3 } },
+  },
+  {
+    name: 'RECORD_CONTAINMENT without the server facts',
+    event: { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined' } as FindingEvent,
+  },
   { name: 'CONFIRM_EFFECTIVE with a blank note', event: { type: 'CONFIRM_EFFECTIVE', note: '' } },
   { name: 'NOT_EFFECTIVE with a blank reason', event: { type: 'NOT_EFFECTIVE', reason: ' ' } },
 ];
@@ -62,7 +70,7 @@ describeTransitionTable({
   baseContext,
   validCases,
   invalidCases,
-  allowedEvents: (snapshot) => recordMachines.finding.allowedEvents(snapshot, {}),
+  allowedEvents: (snapshot) => recordMachines.finding.allowedEvents(snapshot, { undecidedInspectionCount: 0 }),
   expected: {
     raised: {
       SUBMIT: ['in_review', 'notifyFindingSubmitted'],
@@ -112,9 +120,10 @@ describe('finding guards', () => {
 
   it('when a major finding has no containment description, then it cannot leave containment', () => {
     const containment = snapshotIn(findingMachine, 'containment', { ...baseContext, class: 'major' });
+    const decided = { undecidedInspectionCount: 0 };
     for (const event of [
-      { type: 'RECORD_CONTAINMENT', description: '' },
-      { type: 'RECORD_CONTAINMENT', description: '   ' },
+      { type: 'RECORD_CONTAINMENT', description: '', facts: decided },
+      { type: 'RECORD_CONTAINMENT', description: '   ', facts: decided },
       { type: 'ACTION_VERIFIED' },
       { type: 'CONFIRM_EFFECTIVE', note: 'skip ahead' },
       { type: 'CLOSE' },
@@ -124,9 +133,20 @@ describe('finding guards', () => {
     const [next] = transition(findingMachine, containment, {
       type: 'RECORD_CONTAINMENT',
       description: 'Technique suspended; parts since last calibration quarantined',
+      facts: decided,
     });
     expect(next.value).toBe('action_open');
     expect(next.context.containmentDescription).toBe('Technique suspended; parts since last calibration quarantined');
+  });
+
+  it('when past inspections are still undecided, then containment cannot be recorded; the allowed events say so too', () => {
+    const containment = snapshotIn(findingMachine, 'containment', { ...baseContext, class: 'major' });
+    const event = { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined' } as const;
+    expect(transition(findingMachine, containment, { ...event, facts: { undecidedInspectionCount: 1 } })[0].value).toBe('containment');
+    expect(transition(findingMachine, containment, { ...event, facts: { undecidedInspectionCount: -1 } })[0].value).toBe('containment');
+    expect(transition(findingMachine, containment, { ...event, facts: { undecidedInspectionCount: 0 } })[0].value).toBe('action_open');
+    expect(recordMachines.finding.allowedEvents(containment, { undecidedInspectionCount: 2 })).toEqual([]);
+    expect(recordMachines.finding.allowedEvents(containment, { undecidedInspectionCount: 0 })).toEqual(['RECORD_CONTAINMENT']);
   });
 
   it('when a major or minor finding is classified, then class and optional note are stored', () => {

@@ -5,7 +5,7 @@ import { auditProbeEvents, correctiveActionProbeEvents, findingProbeEvents } fro
 import { effectNamesOf } from './helpers/transition-table';
 
 const inputs: Record<RecordKind, unknown> = { audit: undefined, finding: undefined, action: { dueDate: '2026-06-30' } };
-const facts = { audit: { openFindingCount: 0 }, finding: {}, action: { evidenceCount: 1 } } as const;
+const facts = { audit: { openFindingCount: 0 }, finding: { undecidedInspectionCount: 0 }, action: { evidenceCount: 1 } } as const;
 
 function actionImplementations(machine: AnyStateMachine): Array<[name: string, implementation: unknown]> {
   return Object.entries(machine.implementations.actions);
@@ -44,7 +44,7 @@ function probeEventsOf(kind: RecordKind, context: Record<string, unknown>) {
     case 'audit':
       return auditProbeEvents(context as never, facts.audit);
     case 'finding':
-      return findingProbeEvents(context as never);
+      return findingProbeEvents(context as never, facts.finding);
     case 'action':
       return correctiveActionProbeEvents(context as never, facts.action);
   }

@@ -65,7 +65,7 @@ function samplePathEvents(kind: RecordKind) {
         { type: 'WITHDRAW', reason: 'Duplicate' },
         { type: 'CLASSIFY', class: 'major', note: 'Cracks may have been missed' },
         { type: 'CLASSIFY', class: 'observation', note: 'Wording' },
-        { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined' },
+        { type: 'RECORD_CONTAINMENT', description: 'Parts quarantined', facts: { undecidedInspectionCount: 0 } },
         { type: 'ACTION_VERIFIED' },
         { type: 'CONFIRM_EFFECTIVE', note: 'Holds' },
         { type: 'NOT_EFFECTIVE', reason: 'Recurred' },
@@ -254,7 +254,7 @@ describe('which events are open now', () => {
 
   it('allowedEventsFor on a finding in review offers withdraw and classify', () => {
     const inReview = snapshotIn(findingMachine, 'in_review', findingContext);
-    expect(allowedEventsFor('finding', inReview, {})).toEqual(['WITHDRAW', 'CLASSIFY']);
+    expect(allowedEventsFor('finding', inReview, { undecidedInspectionCount: 0 })).toEqual(['WITHDRAW', 'CLASSIFY']);
   });
 
   for (const { kind, machine, input } of everyMachine) {

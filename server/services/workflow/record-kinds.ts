@@ -7,6 +7,7 @@ import { recordMachines, type RecordKind } from '../../../machines';
 import type { AppAbility, SubjectName } from '../../../shared/abilities';
 import { Audit, CorrectiveAction, Finding } from '../../models';
 import { countCurrentEvidence } from '../evidence-count';
+import { undecidedCounts } from '../impact-scope';
 import { restoreRecordSnapshot, allowedEventsFor } from '../../../machines';
 
 export type WorkflowRow = Audit | Finding | CorrectiveAction;
@@ -50,7 +51,7 @@ export function subjectFor(kind: RecordKind, row: WorkflowRow, related: RelatedI
   return subject(SUBJECTS[kind], plain);
 }
 
-export type FactsFor = { audit: { openFindingCount: number }; finding: Record<string, never>; action: { evidenceCount: number } };
+export type FactsFor = { audit: { openFindingCount: number }; finding: { undecidedInspectionCount: number }; action: { evidenceCount: number } };
 
 /** Counts open findings per audit in one query. */
 export async function openFindingCounts(auditIds: number[], transaction?: Transaction): Promise<Map<number, number>> {
@@ -65,8 +66,13 @@ export async function openFindingCounts(auditIds: number[], transaction?: Transa
   return counts;
 }
 
-/** The server facts of many records of one kind, in one query. */
-export async function factsForMany(kind: RecordKind, ids: number[], transaction?: Transaction): Promise<Map<number, FactsFor[RecordKind]>> {
+/** The server facts of many records of one kind (`now` judges the registers behind a finding's impact scope). */
+export async function factsForMany(
+  kind: RecordKind,
+  ids: number[],
+  transaction?: Transaction,
+  now: Date = new Date(),
+): Promise<Map<number, FactsFor[RecordKind]>> {
   if (kind === 'audit') {
     const counts = await openFindingCounts(ids, transaction);
     return new Map(ids.map((id) => [id, { openFindingCount: counts.get(id) ?? 0 }]));
@@ -75,7 +81,8 @@ export async function factsForMany(kind: RecordKind, ids: number[], transaction?
     const counts = await countCurrentEvidence(transaction, 'action', ids);
     return new Map(ids.map((id) => [id, { evidenceCount: counts.get(id) ?? 0 }]));
   }
-  return new Map(ids.map((id) => [id, {}]));
+  const counts = await undecidedCounts(ids, now, transaction);
+  return new Map(ids.map((id) => [id, { undecidedInspectionCount: counts.get(id) ?? 0 }]));
 }
 
 /**

@@ -31,7 +31,9 @@ export function refusalReason(
         ? 'An observation closes at once and needs a note saying why no corrective action is required'
         : 'Choose a class: major, minor or observation';
     case 'finding:RECORD_CONTAINMENT':
-      return 'Describe the containment (what was done at once)';
+      return facts.undecidedInspectionCount > 0
+        ? `${facts.undecidedInspectionCount} past inspection(s) this finding puts in doubt have no containment decision yet; decide each on the impact worksheet first`
+        : 'Describe the containment (what was done at once)';
     case 'finding:CONFIRM_EFFECTIVE':
       return 'A note saying how effectiveness was checked is required';
     case 'action:SUBMIT_PLAN':

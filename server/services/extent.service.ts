@@ -1,0 +1,287 @@
+// Extent of condition: from a finding raised on a failed checklist rule, run
+// the engine over every approved technique and list those that fail the same
+// rule (and which of them fail it for the same flaw orientation or coil type);
+// then raise linked findings against the techniques the quality manager picks.
+// Each run is kept (who, when, engine and policy version, the whole list) and
+// written to the trail, so the decision can be shown to an assessor later.
+import { subject } from '@casl/ability';
+import { Op, type Transaction } from 'sequelize';
+import { applyEvent, createInitialSnapshot, findingMachine, FINDING_MACHINE_VERSION, persistSnapshot } from '../../machines';
+import type { AppDeps } from '../app-deps';
+import type { AppAbility } from '../../shared/abilities';
+import { CHECKLIST_ENGINE_VERSION } from '../../shared/domain/checklist';
+import type { ExtentRunView, ExtentTechnique, FindingFamilyView, RaiseExtentFindingsInput } from '../../shared/schemas/extent';
+import { ExtentRun, Finding, PolicyHead, Technique, TechniqueRevision, User } from '../models';
+import { AppError, forbidden, notAllowedNow, notFound } from '../lib/app-error';
+import { appendTrail } from './trail.service';
+import { allocateRecordNumber } from './record-numbers.service';
+import { loadOrganisationPolicy } from './policy.service';
+import { findingRuleOf, ruleFailuresOfRevision, type FindingRule } from './finding-rule';
+import { retryOnDeadlock } from './workflow/retry';
+import type { EventActor } from './record-events.service';
+
+const HAND_RAISED = 'This finding was raised by hand and names no checklist result: an extent run needs a finding raised from a failed checklist rule';
+
+function checkMay(ability: AppAbility, finding: Finding) {
+  const plain = finding.get({ plain: true }) as Record<string, unknown>;
+  delete plain.snapshot;
+  if (!ability.can('assess_extent', subject('Finding', plain))) throw forbidden('Only a quality manager assesses the extent of a finding');
+}
+
+/** Every approved revision, judged for the finding's rule. */
+async function evaluateApprovedRevisions(deps: AppDeps, finding: Finding, rule: FindingRule, transaction: Transaction): Promise<ExtentTechnique[]> {
+  const policy = await loadOrganisationPolicy(transaction);
+  const revisions = await TechniqueRevision.findAll({
+    where: { state: 'approved' },
+    include: [{ model: Technique, as: 'technique', attributes: ['id', 'code', 'title'] }],
+    transaction,
+  });
+  const judged: ExtentTechnique[] = [];
+  for (const revision of revisions) {
+    const failures = await ruleFailuresOfRevision(revision, rule, { policy, now: deps.clock.now(), transaction });
+    if (failures === null) continue; // stored content that no longer parses cannot be judged; it is not listed as passing either
+    judged.push({
+      techniqueId: revision.techniqueId,
+      revisionId: revision.id,
+      code: revision.technique!.code,
+      title: revision.technique!.title,
+      revision: revision.revision,
+      failures,
+      sameOrientation: rule.flawOrientation !== null && failures.some((failure) => failure.flawOrientation === rule.flawOrientation),
+      sameCoilType: rule.coilType !== null && failures.some((failure) => failure.coilType === rule.coilType),
+      isFindingTechnique: revision.techniqueId === finding.techniqueId,
+    });
+  }
+  return judged.sort((a, b) => Number(b.isFindingTechnique) - Number(a.isFindingTechnique) || a.code.localeCompare(b.code));
+}
+
+async function presentRun(run: ExtentRun, transaction?: Transaction): Promise<ExtentRunView> {
+  const runBy = run.runBy ?? (await User.findByPk(run.runById, { attributes: ['id', 'displayName'], transaction }));
+  const linked = await Finding.findAll({
+    where: { extentOfId: run.findingId },
+    attributes: ['id', 'number', 'state', 'techniqueId'],
+    order: [['number', 'ASC']],
+    transaction,
+  });
+  return {
+    id: run.id,
+    findingId: run.findingId,
+    rule: run.rule as ExtentRunView['rule'],
+    flawOrientation: run.flawOrientation,
+    coilType: run.coilType,
+    engineVersion: run.engineVersion,
+    policyVersion: run.policyVersion,
+    runAt: run.runAt.toISOString(),
+    runBy: { id: run.runById, name: runBy?.displayName ?? '' },
+    evaluatedCount: run.techniques.length,
+    failing: run.techniques.filter((technique) => technique.failures.length > 0),
+    linked: linked
+      .filter((finding) => finding.techniqueId !== null)
+      .map((finding) => ({ techniqueId: finding.techniqueId!, findingId: finding.id, number: finding.number, state: finding.state })),
+  };
+}
+
+export async function runExtent(deps: AppDeps, actor: EventActor, ability: AppAbility, findingId: number): Promise<ExtentRunView> {
+  const now = deps.clock.now();
+  return deps.sequelize.transaction(async (transaction) => {
+    const finding = await Finding.findByPk(findingId, { transaction });
+    if (!finding) throw notFound('Finding');
+    checkMay(ability, finding);
+    if (finding.state === 'withdrawn') throw notAllowedNow('This finding is withdrawn: there is no condition to look for elsewhere');
+    const rule = await findingRuleOf(finding, transaction);
+    if (!rule) throw notAllowedNow(HAND_RAISED);
+    const techniques = await evaluateApprovedRevisions(deps, finding, rule, transaction);
+    const policyVersion = (await PolicyHead.findByPk(1, { transaction }))?.version ?? 0;
+    const run = await ExtentRun.create(
+      {
+        findingId,
+        rule: rule.rule,
+        flawOrientation: rule.flawOrientation,
+        coilType: rule.coilType,
+        engineVersion: CHECKLIST_ENGINE_VERSION,
+        policyVersion,
+        techniques,
+        runById: actor.id,
+        runAt: now,
+      },
+      { transaction },
+    );
+    const failing = techniques.filter((technique) => technique.failures.length > 0);
+    await appendTrail(deps.sequelize, transaction, {
+      userId: actor.id,
+      recordType: 'finding',
+      recordId: findingId,
+      event: 'EXTENT_RUN',
+      changes: {
+        runId: run.id,
+        rule: rule.rule,
+        flawOrientation: rule.flawOrientation,
+        coilType: rule.coilType,
+        engineVersion: CHECKLIST_ENGINE_VERSION,
+        policyVersion,
+        evaluated: techniques.length,
+        failing: failing.map((technique) => `${technique.code} rev ${technique.revision}`),
+        sameOrientation: failing.filter((technique) => technique.sameOrientation).map((technique) => technique.code),
+        sameCoilType: failing.filter((technique) => technique.sameCoilType).map((technique) => technique.code),
+      },
+      at: now,
+    });
+    return presentRun(run, transaction);
+  });
+}
+
+function invalid(path: string, message: string) {
+  return new AppError('Some body fields are not valid', { status: 400, code: 'invalid_input', details: [{ path, message }] });
+}
+
+function describeFailures(entry: ExtentTechnique): string {
+  return entry.failures
+    .map((failure) => {
+      const values = Object.entries(failure.values).map(([key, value]) => `${key} = ${value === null ? '—' : String(value)}`).join('; ');
+      return values ? `${failure.message} Values: ${values}.` : failure.message;
+    })
+    .join(' ');
+}
+
+/**
+ * Raises one finding per chosen technique, linked to the original as its extent
+ * of condition, with the proposed class. They start in review (the quality
+ * manager raised them, so there is nobody to submit them) and are classified
+ * one by one like any finding. Returns the new findings' ids.
+ */
+export async function raiseExtentFindings(
+  deps: AppDeps,
+  actor: EventActor,
+  ability: AppAbility,
+  findingId: number,
+  input: RaiseExtentFindingsInput,
+): Promise<Array<{ id: number; number: string }>> {
+  const now = deps.clock.now();
+  return retryOnDeadlock(() =>
+    deps.sequelize.transaction(async (transaction) => {
+      const original = await Finding.findByPk(findingId, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!original) throw notFound('Finding');
+      checkMay(ability, original);
+      if (original.state === 'withdrawn') throw notAllowedNow('This finding is withdrawn: raise nothing from it');
+      const run = await ExtentRun.findOne({ where: { id: input.runId, findingId }, transaction });
+      if (!run) throw invalid('runId', 'no such extent run on this finding');
+      const revisionIds = [...new Set(input.revisionIds)];
+      const entries = revisionIds.map((revisionId, index) => {
+        const entry = run.techniques.find((candidate) => candidate.revisionId === revisionId);
+        if (!entry || entry.failures.length === 0) throw invalid(`revisionIds.${index}`, 'this revision does not fail the rule in that run');
+        if (entry.isFindingTechnique) throw invalid(`revisionIds.${index}`, `${entry.code} is the technique this finding is about`);
+        return entry;
+      });
+      const existing = await Finding.findAll({
+        where: { extentOfId: findingId, techniqueId: { [Op.in]: entries.map((entry) => entry.techniqueId) }, state: { [Op.ne]: 'withdrawn' } },
+        attributes: ['number', 'techniqueCode'],
+        transaction,
+      });
+      if (existing.length) {
+        const list = existing.map((finding) => `${finding.number} (${finding.techniqueCode})`).join(', ');
+        throw new AppError(`Already raised from this finding: ${list}`, { status: 409, code: 'already_raised' });
+      }
+      const proposedClass = input.proposedClass ?? original.class;
+      const techniques = await Technique.findAll({ where: { id: { [Op.in]: entries.map((entry) => entry.techniqueId) } }, attributes: ['id', 'areaId'], transaction });
+      const created: Array<{ id: number; number: string }> = [];
+      for (const entry of entries) {
+        const number = await allocateRecordNumber(deps.sequelize, transaction, 'F', now);
+        const submitted = applyEvent(findingMachine, createInitialSnapshot(findingMachine).snapshot, { type: 'SUBMIT' });
+        const finding = await Finding.create(
+          {
+            number,
+            auditId: null,
+            techniqueId: entry.techniqueId,
+            techniqueCode: entry.code,
+            checklistRunId: null,
+            resultIndex: null,
+            title: `${entry.code}: ${run.rule} (extent of ${original.number})`,
+            rule: original.rule,
+            requirement: original.requirement,
+            objectiveEvidence: `Extent-of-condition run ${run.id} from ${original.number} on ${run.runAt.toISOString().slice(0, 10)} (engine ${run.engineVersion}, policy version ${run.policyVersion}): ${entry.code} rev ${entry.revision} fails "${run.rule}". ${describeFailures(entry)}`,
+            resultValues: entry.failures[0]?.values ?? null,
+            class: null,
+            classificationNote: null,
+            containment: null,
+            containmentDueDate: null,
+            dueDate: null,
+            effectivenessNote: null,
+            notEffectiveReason: null,
+            closureNote: null,
+            withdrawReason: null,
+            closedAt: null,
+            extentOfId: original.id,
+            proposedClass,
+            authorId: actor.id,
+            areaId: techniques.find((technique) => technique.id === entry.techniqueId)?.areaId ?? original.areaId,
+            state: submitted.state,
+            snapshot: persistSnapshot(findingMachine, submitted.snapshot),
+            machineVersion: FINDING_MACHINE_VERSION,
+            createdAt: now,
+          },
+          { transaction },
+        );
+        await appendTrail(deps.sequelize, transaction, {
+          userId: actor.id,
+          recordType: 'finding',
+          recordId: finding.id,
+          event: 'FINDING_RAISED',
+          changes: {
+            number,
+            extentOf: original.number,
+            extentRunId: run.id,
+            techniqueCode: entry.code,
+            revision: entry.revision,
+            rule: original.rule,
+            proposedClass,
+            state: submitted.state,
+          },
+          at: now,
+        });
+        created.push({ id: finding.id, number });
+      }
+      await appendTrail(deps.sequelize, transaction, {
+        userId: actor.id,
+        recordType: 'finding',
+        recordId: original.id,
+        event: 'EXTENT_FINDINGS_RAISED',
+        changes: {
+          extentRunId: run.id,
+          proposedClass,
+          raised: created.map((finding, index) => `${finding.number}: ${entries[index].code} rev ${entries[index].revision}`),
+        },
+        at: now,
+      });
+      return created;
+    }),
+  );
+}
+
+export async function getFindingFamily(findingId: number): Promise<FindingFamilyView> {
+  const finding = await Finding.findByPk(findingId, {
+    include: [{ model: Finding, as: 'extentOf', attributes: ['id', 'number', 'title', 'state'] }],
+  });
+  if (!finding) throw notFound('Finding');
+  const [members, rule, latest] = await Promise.all([
+    Finding.findAll({ where: { extentOfId: findingId }, order: [['number', 'ASC']] }),
+    findingRuleOf(finding),
+    ExtentRun.findOne({ where: { findingId }, order: [['runAt', 'DESC'], ['id', 'DESC']], include: [{ model: User, as: 'runBy', attributes: ['id', 'displayName'] }] }),
+  ]);
+  return {
+    extentOf: finding.extentOf
+      ? { id: finding.extentOf.id, number: finding.extentOf.number, title: finding.extentOf.title, state: finding.extentOf.state }
+      : null,
+    members: members.map((member) => ({
+      id: member.id,
+      number: member.number,
+      title: member.title,
+      techniqueCode: member.techniqueCode,
+      state: member.state,
+      class: member.class,
+      proposedClass: member.proposedClass ?? null,
+    })),
+    extentPossible: rule !== null && finding.state !== 'withdrawn',
+    extentUnavailableReason: rule === null ? HAND_RAISED : finding.state === 'withdrawn' ? 'This finding is withdrawn' : null,
+    latestRun: latest ? await presentRun(latest) : null,
+  };
+}
