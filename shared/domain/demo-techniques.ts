@@ -109,6 +109,30 @@ export const DEMO_TECHNIQUES: readonly Technique[] = [
   },
 ];
 
+/**
+ * A later bar technique written from TAC-ET-017 for thicker stock, and with the
+ * same weakness: it claims a centreline flaw an encircling coil cannot see. In
+ * the demo it is what an extent-of-condition run from TAC-ET-017's finding finds.
+ * Kept out of DEMO_TECHNIQUES (the five of the audit scenario).
+ */
+export const DEMO_SISTER_TECHNIQUE: Technique = {
+  code: 'TAC-ET-019',
+  title: 'Bar stock 40 mm receiving inspection, encircling coil',
+  revision: 'A',
+  material: { name: '2024-T351 bar', conductivityIacs: 30, relativePermeability: 1, saturated: false },
+  part: { form: 'bar', diameterMm: 40 },
+  coils: [{ type: 'encircling', diameterMm: 44, shielded: false, mode: 'differential', frequenciesHz: [250] }],
+  scan: { edgeGuide: false },
+  flaws: [
+    { id: 'surface-seam', orientation: 'axial', location: 'surface', depthMm: 0.3, lengthMm: 25 },
+    { id: 'centreline-burst', orientation: 'axial', location: 'center', depthMm: 20, lengthMm: 60 },
+  ],
+  reference: {
+    conductivityIacs: 30,
+    notches: [{ orientation: 'axial', depthMm: 0.3, lengthMm: 25 }],
+  },
+};
+
 export interface DemoTechniqueNote {
   /** The demo area the technique belongs to. */
   area: 'Wheel and Brake Shop' | 'Structures Bay' | 'Receiving Inspection';
@@ -123,4 +147,5 @@ export const DEMO_TECHNIQUE_NOTES: Readonly<Record<string, DemoTechniqueNote>> =
   'TAC-ET-017': { area: 'Receiving Inspection', expectedVerdict: 'does-not-conform', failingRules: ['center-effect'] },
   'TAC-ET-023': { area: 'Receiving Inspection', expectedVerdict: 'does-not-conform', failingRules: ['orientation-coverage'] },
   'TAC-ET-031': { area: 'Structures Bay', expectedVerdict: 'does-not-conform', failingRules: ['edge-effect'] },
+  'TAC-ET-019': { area: 'Receiving Inspection', expectedVerdict: 'does-not-conform', failingRules: ['center-effect'] },
 };

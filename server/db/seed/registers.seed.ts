@@ -130,6 +130,7 @@ const TECHNIQUE_LINKS: Record<string, { equipment: string[]; performers: string[
   'TAC-ET-017': { equipment: ['et-portable', 'encircling', 'ref-bar'], performers: ['technician'] },
   'TAC-ET-023': { equipment: ['et-portable', 'bobbin', 'ref-tube'], performers: ['level3'] },
   'TAC-ET-031': { equipment: ['et-two-channel', 'spot', 'ref-lap'], performers: ['level3', 'technician'] },
+  'TAC-ET-019': { equipment: ['et-portable', 'encircling', 'ref-bar'], performers: ['technician'] },
 };
 
 export const seedRegisters: SeedStep = async (context) => {

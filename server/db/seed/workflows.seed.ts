@@ -15,6 +15,8 @@ import { createAudit, runChecklist } from '../../services/audits.service';
 import { raiseFinding } from '../../services/findings.service';
 import { assignAction } from '../../services/actions.service';
 import { applyRecordEvent } from '../../services/record-events.service';
+import { getFindingImpact, recordContainmentDecisions } from '../../services/finding-impact.service';
+import type { ContainmentDecisionKind, ImpactRow } from '../../../shared/schemas/impact';
 import { addDays } from '../../services/workflow-policy';
 import { contentKey } from '../../storage';
 import { addEvidenceFromBytes } from '../../services/evidence.service';
@@ -61,6 +63,25 @@ function makeDriver(context: SeedContext) {
       const signed = ['ISSUE', 'VERIFY', 'CLOSE'].includes(body.type) && !(kind === 'audit' && body.type === 'CLOSE');
       const input = { ...body, version: await versionOf(kind, id), ...(signed ? { password: DEMO_PASSWORD } : {}) };
       await applyRecordEvent(deps, { actor, ability, kind, id, input });
+    },
+    /**
+     * Records the quality manager's containment decisions on a finding's impact
+     * worksheet: `choose` gives the decision for a row (null leaves it undecided);
+     * rows with the same decision and reason are recorded together, as on the page.
+     */
+    async decideImpact(key: UserKey, findingId: number, choose: (row: ImpactRow) => { decision: ContainmentDecisionKind; reason: string } | null) {
+      const { actor, ability } = as(key);
+      const impact = await getFindingImpact(deps, findingId);
+      const batches = new Map<string, { decision: ContainmentDecisionKind; reason: string; inspectionIds: number[] }>();
+      for (const row of impact.rows) {
+        const chosen = row.decision ? null : choose(row);
+        if (!chosen) continue;
+        const batchKey = `${chosen.decision}|${chosen.reason}`;
+        const batch = batches.get(batchKey) ?? { ...chosen, inspectionIds: [] };
+        batch.inspectionIds.push(row.inspection.id);
+        batches.set(batchKey, batch);
+      }
+      for (const batch of batches.values()) await recordContainmentDecisions(deps, actor, ability, findingId, batch);
     },
     now: () => now,
   };
@@ -281,6 +302,24 @@ export const seedWorkflows: SeedStep = async (context) => {
   await d.send('quality', 'finding', calibration, { type: 'CLASSIFY', class: 'major' });
   for (const id of [frequency, serial, fill, briefing, handling]) await d.send('quality', 'finding', id, { type: 'CLASSIFY', class: 'minor' });
   d.at(63);
+  // Each major finding's past inspections get a decision before its containment is recorded.
+  await d.decideImpact('quality', orientation, ({ inspection }) =>
+    inspection.result === 'reject'
+      ? { decision: 'not_affected', reason: 'Already rejected and out of service: the missed orientation changes nothing for this part' }
+      : { decision: 'reinspect', reason: 'Accepted with the bobbin coil alone: re-inspect with the rotating probe for circumferential cracks' },
+  );
+  await d.decideImpact('quality', certificate, () => ({
+    decision: 'reinspect',
+    reason: 'Set up on a reference tube whose notch dimensions were not certified: re-inspect against RT-22',
+  }));
+  await d.decideImpact('quality', calibration, () => ({
+    decision: 'accept_justified',
+    reason: 'The shift log shows the start, 4-hour and end checks for this inspection; only bundle HX-3 lacked them and it is re-inspected under the orientation finding',
+  }));
+  // "centre" keeps its containment open: the rejected bars are decided, the accepted ones still wait.
+  await d.decideImpact('quality', centre, ({ inspection }) =>
+    inspection.result === 'reject' ? { decision: 'not_affected', reason: 'Rejected at receiving and returned to the supplier' } : null,
+  );
   await d.send('quality', 'finding', orientation, { type: 'RECORD_CONTAINMENT', description: 'Technique TAC-ET-023 suspended; bundles HX-1 to HX-3 quarantined pending a rotating-probe re-inspection' });
   await d.send('quality', 'finding', certificate, { type: 'RECORD_CONTAINMENT', description: 'RT-19 withdrawn; RT-22 (current certificate) issued; the 14 inspections listed for re-inspection' });
   await d.send('quality', 'finding', calibration, { type: 'RECORD_CONTAINMENT', description: 'HX-3 results placed on hold until re-inspected with checks every 4 hours' });

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { evaluateTechnique, parseTechnique, RULE_IDS } from '../../../shared/domain/checklist/index';
-import { DEMO_TECHNIQUE_NOTES, DEMO_TECHNIQUES } from '../../../shared/domain/demo-techniques';
+import { DEMO_SISTER_TECHNIQUE, DEMO_TECHNIQUE_NOTES, DEMO_TECHNIQUES } from '../../../shared/domain/demo-techniques';
 import { resultOf } from './techniques';
 
 // The shared example techniques (copied into tests/shared/fixtures) and their documented verdicts.
@@ -56,6 +56,16 @@ describe('demo techniques', () => {
     const note = DEMO_TECHNIQUE_NOTES[code];
     expect(output.verdict).toBe(note.expectedVerdict);
     expect([...new Set(output.results.filter((result) => result.status === 'fail').map((result) => result.rule))]).toEqual(note.failingRules);
+  });
+
+  it('has a sister bar technique with TAC-ET-017’s gap, for the extent-of-condition demo', () => {
+    // With an encircling coil on a solid bar the current density is zero at the axis whatever the
+    // frequency [pub: the usual statement of the center effect; see the engine's center-effect rule].
+    const output = evaluateTechnique(DEMO_SISTER_TECHNIQUE);
+    const note = DEMO_TECHNIQUE_NOTES[DEMO_SISTER_TECHNIQUE.code];
+    expect(output.verdict).toBe(note.expectedVerdict);
+    expect([...new Set(output.results.filter((result) => result.status === 'fail').map((result) => result.rule))]).toEqual(['center-effect']);
+    expect(output.results.filter((result) => result.status === 'warn')).toEqual([]);
   });
 
   it('includes the three deliberate gaps: orientation, uncontrolled edge and a core flaw', () => {
