@@ -60,7 +60,7 @@ function PreviewTable({ preview }: { preview: InspectionImportPreview }) {
         <caption className="sr-only">Import preview</caption>
         <thead className="sticky top-0 bg-paper">
           <tr>
-            {['Row', 'Date', 'Technique', 'Part / serial', 'Work order', 'Customer', 'Inspector', 'Result', 'Equipment', 'Problems'].map((header) => (
+            {['Row', 'Inspection', 'Inspector and result', 'Equipment', 'Check'].map((header) => (
               <th key={header} scope="col" className="px-2 py-1 font-bold whitespace-nowrap">
                 {header}
               </th>
@@ -73,21 +73,25 @@ function PreviewTable({ preview }: { preview: InspectionImportPreview }) {
             return (
               <tr key={row.row} className={`border-t border-ink/10 align-top ${errors.length ? 'bg-red-50' : ''}`} data-invalid={errors.length > 0 || undefined}>
                 <td className="px-2 py-1 font-bold">{row.row}</td>
-                <td className="px-2 py-1 whitespace-nowrap">{row.performedOn}</td>
-                <td className="px-2 py-1 whitespace-nowrap">
-                  {row.technique.code} rev {row.technique.revision}
+                <td className="px-2 py-1">
+                  <div className="font-bold whitespace-nowrap">
+                    {row.performedOn} · {row.technique.code} rev {row.technique.revision}
+                  </div>
+                  <div>
+                    {row.partNumber} S/N {row.serialNumber}
+                  </div>
+                  <div className="text-ink-soft">
+                    {row.workOrder} · {row.customer}
+                  </div>
                 </td>
                 <td className="px-2 py-1">
-                  {row.partNumber} / {row.serialNumber}
+                  <div>{row.inspector.name ?? row.inspector.email}</div>
+                  <div className="font-bold">{row.result ? INSPECTION_RESULT_LABELS[row.result] : '—'}</div>
                 </td>
-                <td className="px-2 py-1">{row.workOrder}</td>
-                <td className="px-2 py-1">{row.customer}</td>
-                <td className="px-2 py-1">{row.inspector.name ?? row.inspector.email}</td>
-                <td className="px-2 py-1 whitespace-nowrap">{row.result ? INSPECTION_RESULT_LABELS[row.result] : '—'}</td>
                 <td className="px-2 py-1">{equipmentText(row)}</td>
                 <td className="px-2 py-1 text-fail">
                   {errors.length === 0 ? (
-                    <span className="text-pass">OK</span>
+                    <span className="font-bold text-pass">OK</span>
                   ) : (
                     <ul>
                       {errors.map((error, index) => (

@@ -136,7 +136,7 @@ export function InspectionsPanel() {
           </label>
           <label className="flex flex-col gap-1 text-sm font-bold">
             Technique
-            <select className={filterClass} value={list.filters.techniqueId ?? ''} onChange={(e) => list.update({ techniqueId: e.target.value, revisionId: null })}>
+            <select className={`${filterClass} max-w-64`} value={list.filters.techniqueId ?? ''} onChange={(e) => list.update({ techniqueId: e.target.value, revisionId: null })}>
               <option value="">Any</option>
               {techniques.map(([id, label]) => (
                 <option key={id} value={id}>
