@@ -10,7 +10,7 @@ import { seedWorkflows } from './workflows.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 import type { AppConfig } from '../../config/env';
 
-export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedWorkflows, seedInspections];
+export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedInspections, seedWorkflows];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);
