@@ -1,10 +1,11 @@
-// The PDF finding record: the finding, its containment, the corrective action
-// (root cause, plan), the evidence with hashes, verification, the closure
-// signature and the record's trail.
+// The PDF finding record: the finding, its containment, extent of condition and
+// impact worksheet, the corrective action (root cause, plan), the evidence with
+// hashes, verification, the closure signature and the record's trail.
 import type { EvidenceList, ExportEnvelope, FindingExport } from '../services/record-export.service';
 import { CAUTION_TEXT, createReportDocument, fields, finishReport, heading, mono, paragraph, signatureBlock, small, subheading, title, utc, type Doc } from './pdf-document';
 import { formatValues } from './format-values';
 import { ruleLabel } from './audit-report.pdf';
+import { extentSection, impactSection } from './impact-sections.pdf';
 
 const size = (bytes: number) => (bytes >= 1_048_576 ? `${(bytes / 1_048_576).toFixed(1)} MB` : bytes >= 1024 ? `${Math.round(bytes / 1024)} kB` : `${bytes} B`);
 
@@ -35,7 +36,7 @@ function changesText(changes: unknown): string {
 }
 
 export async function renderFindingRecord(exported: ExportEnvelope<FindingExport>, generatedAt: Date): Promise<Buffer> {
-  const { record: finding, action, evidence: files, trail } = exported.content;
+  const { record: finding, action, evidence: files, trail, extent, impact } = exported.content;
   const doc = createReportDocument({ title: `Finding record ${finding.number}`, subject: finding.title });
   title(doc, `Finding record ${finding.number}`, finding.title);
 
@@ -68,6 +69,8 @@ export async function renderFindingRecord(exported: ExportEnvelope<FindingExport
   heading(doc, 'Containment');
   paragraph(doc, finding.containment ?? (finding.class === 'major' ? 'Not yet recorded.' : 'Not required for this class.'));
   if (finding.containmentDueDate) small(doc, `Containment due ${finding.containmentDueDate}`);
+  extentSection(doc, extent);
+  impactSection(doc, impact);
 
   heading(doc, 'Corrective action');
   if (!action) paragraph(doc, 'No corrective action assigned.');

@@ -12,6 +12,10 @@ import type { AppAbility } from '../../shared/abilities';
 import { ChecklistRun, TrailEntry, User } from '../models';
 import { getAudit } from './audits.service';
 import { getFinding } from './findings.service';
+import { getFindingFamily } from './extent.service';
+import { getFindingImpact } from './finding-impact.service';
+import type { FindingFamilyView } from '../../shared/schemas/extent';
+import type { FindingImpactView } from '../../shared/schemas/impact';
 import { getAction } from './actions.service';
 import { listEvidence } from './evidence.service';
 import { getCertification } from './certification.service';
@@ -101,6 +105,10 @@ export interface AuditExport extends ExportBase<'audit', AuditDetailView> {
 export interface FindingExport extends ExportBase<'finding', FindingDetailView> {
   action: ActionDetailView | null;
   evidence: { finding: EvidenceList; action: EvidenceList | null };
+  /** The extent of condition: the finding it extends, the findings raised from it, the latest run. */
+  extent: FindingFamilyView;
+  /** The impact worksheet: past inspections in doubt and the containment decision for each. */
+  impact: FindingImpactView;
 }
 
 export interface ExportEnvelope<T> {
@@ -138,10 +146,12 @@ export async function exportAudit(deps: AppDeps, exporter: Exporter, id: number)
 export async function exportFinding(deps: AppDeps, exporter: Exporter, id: number): Promise<ExportEnvelope<FindingExport>> {
   const finding = withoutPerUserFields(await getFinding(deps, exporter.ability, id));
   const action = finding.action ? withoutPerUserFields(await getAction(deps, exporter.ability, finding.action.id)) : null;
-  const [trail, findingEvidence, actionEvidence] = await Promise.all([
+  const [trail, findingEvidence, actionEvidence, extent, impact] = await Promise.all([
     trailOf([{ recordType: 'finding', recordId: id }, ...(action ? [{ recordType: 'action', recordId: action.id }] : [])]),
     evidenceOf(deps, exporter, 'finding', id),
     action ? evidenceOf(deps, exporter, 'action', action.id) : Promise.resolve(null),
+    getFindingFamily(id),
+    getFindingImpact(deps, id),
   ]);
   return envelope(deps, exporter, {
     recordType: 'finding',
@@ -149,6 +159,8 @@ export async function exportFinding(deps: AppDeps, exporter: Exporter, id: numbe
     record: finding,
     action,
     evidence: { finding: findingEvidence, action: actionEvidence },
+    extent,
+    impact,
     trail,
   });
 }

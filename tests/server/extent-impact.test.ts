@@ -7,6 +7,7 @@ import { randomBytes } from 'node:crypto';
 import { ContainmentDecision, Equipment, ExtentRun, Finding, Inspection, TechniqueRevision, TrailEntry } from '../../server/models';
 import { createIsolatedDatabase, createTestContext, signedInAs, type SignedIn, type TestContext } from '../helpers/test-app';
 import { expectOk, inDays, makeCast, send, today, type Cast } from '../helpers/workflow';
+import { binary, pdfPages } from '../helpers/pdf';
 import { DEMO_TECHNIQUES } from '../../shared/domain/demo-techniques';
 import { CHECKLIST_ENGINE_VERSION, DEFAULT_POLICY, evaluateTechnique, type Technique } from '../../shared/domain/checklist';
 
@@ -343,5 +344,27 @@ describe('impact on past inspections', () => {
     const csv = await cast.auditor.agent.get(`/api/equipment/${probe.id}/impact.csv`);
     expect(csv.status).toBe(200);
     expect(csv.text.split('\r\n').filter(Boolean)).toHaveLength(3);
+  });
+});
+
+describe('the finding record', () => {
+  it('when exported, then the JSON and the PDF carry the extent run, the linked findings and the containment worksheet', async () => {
+    const { cast, finding } = await setUp();
+    const exported = await expectOk(await cast.quality.agent.get(`/api/findings/${finding.id}/export.json`));
+    const { extent, impact } = exported.content;
+    expect(extent.latestRun.rule).toBe('orientation-coverage');
+    expect(extent.members.length).toBeGreaterThanOrEqual(2);
+    expect(impact.rows.length).toBe(impact.total);
+    expect(impact.rows.every((row: { decision: unknown }) => row.decision !== null)).toBe(true);
+
+    const pdf = await cast.quality.agent.get(`/api/findings/${finding.id}/record.pdf`).buffer(true).parse(binary);
+    expect(pdf.status).toBe(200);
+    const text = pdfPages(pdf.body as Buffer).join('\n');
+    expect(text).toContain('Extent of condition');
+    expect(text).toContain('Impact on past inspections');
+    expect(text).toContain('Containment worksheet');
+    expect(text).toContain('Ølund Kraftværk');
+    expect(text).toContain('Recall report');
+    expect(text).toContain(extent.members[0].number);
   });
 });

@@ -1,36 +1,19 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import canonicalize from 'canonicalize';
 import { createHash } from 'node:crypto';
 import { Signature } from '../../server/models';
 import { createTestContext, TEST_PASSWORD, type TestContext } from '../helpers/test-app';
 import { expectOk, findingAwaitingSignoff, makeCast, send } from '../helpers/workflow';
+import { binary, pdfPages } from '../helpers/pdf';
 
 let context: TestContext;
 beforeAll(() => {
   context = createTestContext();
 });
 afterAll(() => context.close());
-
-const binary = (res: request.Response, done: (error: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
-
-/** The PDF's text as poppler's pdftotext reads it, one string per page. */
-function pdfPages(pdf: Buffer): string[] {
-  const dir = mkdtempSync(path.join(tmpdir(), 'whorl-pdf-'));
-  const file = path.join(dir, 'report.pdf');
-  writeFileSync(file, pdf);
-  const result = spawnSync('pdftotext', ['-enc', 'UTF-8', '-layout', file, '-'], { encoding: 'utf8' });
-  if (result.status !== 0) throw new Error(`pdftotext failed: ${result.stderr}`);
-  return result.stdout.split('\f').filter((page) => page.trim().length > 0);
-}
 
 // Kept for a look after the run (git-ignored).
 const OUTPUT_DIR = path.resolve(import.meta.dirname, '../output');
