@@ -8,7 +8,7 @@ import { Op, type Transaction } from 'sequelize';
 import type { AppDeps } from '../app-deps';
 import { Equipment, Inspection, Technique, TechniqueRevision, User } from '../models';
 import { AppError } from '../lib/app-error';
-import { appendTrail } from './trail.service';
+import { appendTrailBatch } from './trail-batch';
 import { inspectionRuleErrors, loadInspectionFacts } from './inspection-rules';
 import {
   INSPECTION_IMPORT_COLUMNS,
@@ -26,6 +26,8 @@ import {
 } from '../../shared/schemas/inspection';
 
 type Cells = Record<InspectionImportHeader, string>;
+
+const WRITE_CHUNK = 500;
 
 /** Which column each field of InspectionInput comes from, to name the column in an error. */
 const COLUMN_OF_FIELD: Record<keyof InspectionInput, InspectionImportHeader> = {
@@ -283,18 +285,25 @@ export async function importInspections(deps: AppDeps, actorId: number, buffer: 
     }
     const facts = await loadInspectionFacts(inputs.map((c) => c.input), transaction);
     const at = deps.clock.now();
-    for (const { row, input } of inputs) {
-      const techniqueId = facts.revisions.get(input.techniqueRevisionId)!.techniqueId;
-      const created = await Inspection.create({ ...input, techniqueId, createdById: actorId }, { transaction });
-      await appendTrail(deps.sequelize, transaction, {
+    const values = inputs.map(({ input }) => ({ ...input, techniqueId: facts.revisions.get(input.techniqueRevisionId)!.techniqueId, createdById: actorId }));
+    // Multi-row INSERTs: MariaDB hands a multi-row insert consecutive ids, which Sequelize reads back.
+    const created: Inspection[] = [];
+    for (let start = 0; start < values.length; start += WRITE_CHUNK) {
+      created.push(...(await Inspection.bulkCreate(values.slice(start, start + WRITE_CHUNK), { transaction })));
+    }
+    if (created.length !== values.length || created.some((row) => !row.id)) throw new Error('the import did not get an id for every inspection');
+    await appendTrailBatch(
+      deps.sequelize,
+      transaction,
+      created.map((row, index) => ({
         userId: actorId,
         recordType: 'inspection',
-        recordId: created.id,
+        recordId: row.id,
         event: 'INSPECTION_IMPORTED',
-        changes: { ...input, techniqueId, source: { file: fileName, row } },
+        changes: { ...inputs[index].input, techniqueId: values[index].techniqueId, source: { file: fileName, row: inputs[index].row } },
         at,
-      });
-    }
+      })),
+    );
     return { written: inputs.length };
   });
 }

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Inspection, TrailEntry, type User } from '../../server/models';
 import { createTestContext, makeUser, signIn, type SignedIn, type TestContext } from '../helpers/test-app';
 import { makeInspectionFixture, type InspectionFixture } from '../helpers/inspections';
+import { verifyTrail } from '../../server/services/trail.service';
 
 let context: TestContext;
 let fixture: InspectionFixture;
@@ -89,6 +90,11 @@ describe('inspection CSV import', () => {
     expect(trail).toHaveLength(4);
     expect(trail.every((entry) => entry.event === 'INSPECTION_IMPORTED' && entry.userId === quality.user.id)).toBe(true);
     expect(trail.find((entry) => entry.recordId === String(rows[1].id))!.changes).toMatchObject({ source: { file: 'inspections.csv', row: 3 } });
+    // Each entry names the row it was written for, and the chain still verifies after the batch.
+    for (const row of rows) {
+      expect(trail.find((entry) => entry.recordId === String(row.id))!.changes).toMatchObject({ serialNumber: row.serialNumber, performedOn: row.performedOn });
+    }
+    expect((await verifyTrail(context.deps.sequelize)).ok).toBe(true);
   });
 
   it('when one row of a file is bad, then the preview and the import report that row and field and nothing is written', async () => {
