@@ -59,7 +59,7 @@ const EQUIPMENT_COLUMNS = [
   ['reference standard serial', 'reference-standard', 'referenceStandardId'],
 ] as const;
 
-const fileError = (message: string): InspectionImportPreview => ({ rows: [], errors: [{ row: 1, field: '(file)', message }], valid: false });
+const fileError = (message: string): InspectionImportPreview => ({ rows: [], errors: [{ row: 1, field: '(file)', message }], warnings: [], valid: false });
 
 /** UTF-8 only: a file saved in a legacy code page would turn "Kühlwerk" into mojibake silently. */
 function decode(buffer: Buffer): string | null {
@@ -91,7 +91,7 @@ function parseFile(buffer: Buffer): ParsedFile | InspectionImportPreview {
   } catch (error) {
     if (error instanceof CsvError) {
       const row = typeof (error as { records?: number }).records === 'number' ? (error as unknown as { records: number }).records + 1 : 1;
-      return { rows: [], errors: [{ row, field: '(file)', message: `The file cannot be read as CSV: ${error.message}` }], valid: false };
+      return { rows: [], errors: [{ row, field: '(file)', message: `The file cannot be read as CSV: ${error.message}` }], warnings: [], valid: false };
     }
     throw error;
   }
@@ -109,7 +109,7 @@ function parseFile(buffer: Buffer): ParsedFile | InspectionImportPreview {
     if (column.required && !header.includes(column.header)) errors.push({ row: 1, field: column.header, message: `the column “${column.header}” is missing` });
   }
   // Rows cannot be judged against a header that is wrong: fix the header first.
-  if (errors.length) return { rows: [], errors, valid: false };
+  if (errors.length) return { rows: [], errors, warnings: [], valid: false };
   const records: ParsedFile['records'] = [];
   raw.slice(1).forEach((record, index) => {
     const row = index + 2;
@@ -144,7 +144,9 @@ async function loadLookups(records: ParsedFile['records'], transaction?: Transac
         })
       : [],
     emails.length ? User.findAll({ attributes: ['id', 'email', 'displayName', 'active'], where: { email: { [Op.in]: emails } }, transaction }) : [],
-    serials.length ? Equipment.findAll({ attributes: ['id', 'kind', 'serialNumber'], where: { serialNumber: { [Op.in]: serials } }, transaction }) : [],
+    serials.length
+      ? Equipment.findAll({ attributes: ['id', 'kind', 'serialNumber', 'status', 'calibrationDueOn'], where: { serialNumber: { [Op.in]: serials } }, transaction })
+      : [],
   ]);
   const key = (...parts: string[]) => parts.map((part) => part.toLowerCase()).join('\u0000');
   const techniqueCodes = new Set(revisions.map((r) => r.technique!.code.toLowerCase()));
@@ -153,6 +155,7 @@ async function loadLookups(records: ParsedFile['records'], transaction?: Transac
     revisionOf: (code: string, letter: string) => revisions.find((r) => key(r.technique!.code, r.revision) === key(code, letter)) ?? null,
     userOf: (email: string) => users.find((u) => u.email.toLowerCase() === email.toLowerCase()) ?? null,
     equipmentOf: (serial: string) => equipment.filter((e) => e.serialNumber.toLowerCase() === serial.toLowerCase()),
+    equipmentById: new Map(equipment.map((e) => [e.id, e])),
   };
 }
 
@@ -263,9 +266,62 @@ async function checkFile(deps: AppDeps, buffer: Buffer, transaction?: Transactio
       errors.push({ row: candidate.row, field: COLUMN_OF_FIELD[error.path], message: error.message });
     }
   }
+  errors.push(...(await duplicateErrors(candidates, transaction)));
   errors.sort((a, b) => a.row - b.row);
+  const warnings = equipmentWarnings(candidates, lookups.equipmentById);
   const valid = errors.length === 0;
-  return { preview: { rows, errors, valid }, inputs: valid ? candidates : [] };
+  return { preview: { rows, errors, warnings, valid }, inputs: valid ? candidates : [] };
+}
+
+const duplicateKey = (i: Pick<InspectionInput, 'techniqueRevisionId' | 'partNumber' | 'serialNumber' | 'performedOn' | 'workOrder'>) =>
+  [i.techniqueRevisionId, i.partNumber, i.serialNumber, i.performedOn, i.workOrder].map((part) => String(part).toLowerCase()).join('\u0000');
+
+/**
+ * The same inspection twice (same revision, part, serial, day and work order), in the file or
+ * already in the register: almost always a file imported twice, so it is refused.
+ */
+async function duplicateErrors(candidates: { row: number; input: InspectionInput }[], transaction?: Transaction): Promise<InspectionImportError[]> {
+  if (candidates.length === 0) return [];
+  const errors: InspectionImportError[] = [];
+  const firstRow = new Map<string, number>();
+  for (const { row, input } of candidates) {
+    const key = duplicateKey(input);
+    const earlier = firstRow.get(key);
+    if (earlier !== undefined) errors.push({ row, field: '(row)', message: `the same inspection as row ${earlier} (revision, part, serial number, date and work order)` });
+    else firstRow.set(key, row);
+  }
+  const existing = await Inspection.findAll({
+    attributes: ['id', 'techniqueRevisionId', 'partNumber', 'serialNumber', 'performedOn', 'workOrder'],
+    where: {
+      techniqueRevisionId: { [Op.in]: [...new Set(candidates.map((c) => c.input.techniqueRevisionId))] },
+      serialNumber: { [Op.in]: [...new Set(candidates.map((c) => c.input.serialNumber))] },
+    },
+    transaction,
+  });
+  const inRegister = new Set(existing.map(duplicateKey));
+  for (const { row, input } of candidates) {
+    if (inRegister.has(duplicateKey(input))) {
+      errors.push({ row, field: '(row)', message: 'the register already holds this inspection (same revision, part, serial number, date and work order): was the file imported before?' });
+    }
+  }
+  return errors;
+}
+
+/** Equipment past its calibration due date on the day, or out of service now: shown, not refused (the record states what was used). */
+function equipmentWarnings(candidates: { row: number; input: InspectionInput }[], equipment: Map<number, Equipment>): InspectionImportError[] {
+  const warnings: InspectionImportError[] = [];
+  for (const { row, input } of candidates) {
+    for (const [column, , field] of EQUIPMENT_COLUMNS) {
+      const id = input[field];
+      const item = id === null ? undefined : equipment.get(id);
+      if (!item) continue;
+      if (item.calibrationDueOn && item.calibrationDueOn < input.performedOn) {
+        warnings.push({ row, field: column, message: `${item.serialNumber} was due for calibration on ${item.calibrationDueOn}, before this inspection` });
+      }
+      if (item.status !== 'in_service') warnings.push({ row, field: column, message: `${item.serialNumber} is ${item.status.replace('_', ' ')} in the equipment register` });
+    }
+  }
+  return warnings;
 }
 
 export async function previewInspectionImport(deps: AppDeps, buffer: Buffer): Promise<InspectionImportPreview> {

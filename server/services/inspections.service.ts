@@ -133,7 +133,7 @@ export async function inspectionOptions(): Promise<InspectionOptionsView> {
       order: [[{ model: Technique, as: 'technique' }, 'code', 'ASC'], ['seq', 'DESC']],
     }),
     User.findAll({ attributes: ['id', 'displayName', 'email'], where: { active: true }, order: [['displayName', 'ASC']] }),
-    Equipment.findAll({ attributes: ['id', 'kind', 'serialNumber', 'description', 'status'], order: [['kind', 'ASC'], ['description', 'ASC']] }),
+    Equipment.findAll({ attributes: ['id', 'kind', 'serialNumber', 'description', 'status', 'calibrationDueOn'], order: [['kind', 'ASC'], ['description', 'ASC']] }),
   ]);
   return {
     revisions: revisions.map((r) => ({
@@ -146,6 +146,13 @@ export async function inspectionOptions(): Promise<InspectionOptionsView> {
       approvedOn: isoDay(r.approvedAt!),
     })),
     inspectors: users.map((u) => ({ id: u.id, name: u.displayName, email: u.email })),
-    equipment: equipment.map((e) => ({ id: e.id, kind: e.kind, serialNumber: e.serialNumber, description: e.description, status: e.status })),
+    equipment: equipment.map((e) => ({
+      id: e.id,
+      kind: e.kind,
+      serialNumber: e.serialNumber,
+      description: e.description,
+      status: e.status,
+      calibrationDueOn: e.calibrationDueOn,
+    })),
   };
 }

@@ -80,7 +80,7 @@ export type InspectionListQuery = z.infer<typeof InspectionListQuerySchema>;
 export interface InspectionOptionsView {
   revisions: { id: number; techniqueId: number; techniqueCode: string; techniqueTitle: string; revision: string; state: string; approvedOn: string }[];
   inspectors: { id: number; name: string; email: string }[];
-  equipment: (InspectionEquipmentRef & { status: string })[];
+  equipment: (InspectionEquipmentRef & { status: string; calibrationDueOn: string | null })[];
 }
 
 // ---- CSV import -------------------------------------------------------------
@@ -134,6 +134,8 @@ export interface InspectionImportRow {
 export interface InspectionImportPreview {
   rows: InspectionImportRow[];
   errors: InspectionImportError[];
+  /** Worth a look but not a reason to refuse the file (e.g. equipment past its calibration due date on the day). */
+  warnings: InspectionImportError[];
   valid: boolean;
 }
 

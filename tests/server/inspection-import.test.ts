@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Inspection, TrailEntry, type User } from '../../server/models';
+import { Equipment, Inspection, TrailEntry, type User } from '../../server/models';
 import { createTestContext, makeUser, signIn, type SignedIn, type TestContext } from '../helpers/test-app';
 import { makeInspectionFixture, type InspectionFixture } from '../helpers/inspections';
 import { verifyTrail } from '../../server/services/trail.service';
@@ -95,6 +95,26 @@ describe('inspection CSV import', () => {
       expect(trail.find((entry) => entry.recordId === String(row.id))!.changes).toMatchObject({ serialNumber: row.serialNumber, performedOn: row.performedOn });
     }
     expect((await verifyTrail(context.deps.sequelize)).ok).toBe(true);
+  });
+
+  it('when a file is imported twice or repeats a row, then the repeat is refused; equipment past its calibration is a warning only', async () => {
+    const workOrder = `WO-TWICE-${fixture.tag}`;
+    const lapsed = await Equipment.create({ kind: 'probe', description: 'Lapsed probe', model: null, serialNumber: `LAPSED-${fixture.tag}`, calibratedOn: '2025-06-30', calibrationDueOn: '2026-06-30', conductivityIacs: null, material: null, notes: null });
+    const file = [HEADER, line({ workOrder, serial: 'T-1', probe: lapsed.serialNumber }), line({ workOrder, serial: 'T-2' })].join('\n');
+    const previewed = await preview(file);
+    expect(previewed.body.valid).toBe(true);
+    expect(previewed.body.warnings).toEqual([{ row: 2, field: 'probe serial', message: expect.stringContaining('due for calibration on 2026-06-30') }]);
+    expect((await commit(file)).status).toBe(201);
+
+    const again = await preview(file);
+    expect(again.body.valid).toBe(false);
+    expect(again.body.errors.map((e: { row: number; field: string }) => [e.row, e.field])).toEqual([[2, '(row)'], [3, '(row)']]);
+    expect(again.body.errors[0].message).toContain('already holds this inspection');
+    expect((await commit(file)).status).toBe(400);
+    expect(await rowsFor(workOrder)).toHaveLength(2);
+
+    const repeated = await preview([HEADER, line({ workOrder: `${workOrder}-B`, serial: 'T-9' }), line({ workOrder: `${workOrder}-B`, serial: 'T-9' })].join('\n'));
+    expect(repeated.body.errors).toEqual([{ row: 3, field: '(row)', message: expect.stringContaining('same inspection as row 2') }]);
   });
 
   it('when one row of a file is bad, then the preview and the import report that row and field and nothing is written', async () => {

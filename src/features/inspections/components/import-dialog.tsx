@@ -50,12 +50,27 @@ const equipmentText = (row: InspectionImportRow) =>
     .map((item) => item.serialNumber)
     .join(', ') || '—';
 
+/** Rows drawn at most; rows with problems always show. */
+const PREVIEW_ROWS = 200;
+
+function byRow(items: InspectionImportError[]) {
+  const map = new Map<number, InspectionImportError[]>();
+  for (const item of items) map.set(item.row, [...(map.get(item.row) ?? []), item]);
+  return map;
+}
+
 function PreviewTable({ preview }: { preview: InspectionImportPreview }) {
-  const errorsByRow = new Map<number, InspectionImportError[]>();
-  for (const error of preview.errors) errorsByRow.set(error.row, [...(errorsByRow.get(error.row) ?? []), error]);
+  const errorsByRow = byRow(preview.errors);
+  const warningsByRow = byRow(preview.warnings);
   if (preview.rows.length === 0) return null;
+  const shown = preview.rows.filter((row, index) => index < PREVIEW_ROWS || errorsByRow.has(row.row) || warningsByRow.has(row.row));
   return (
     <div className="max-h-80 overflow-auto rounded-md border border-ink/10 bg-white">
+      {shown.length < preview.rows.length && (
+        <p className="px-2 py-1 text-xs text-ink-soft">
+          Showing {shown.length} of {preview.rows.length} rows: the first {PREVIEW_ROWS} and every row with a problem or a warning.
+        </p>
+      )}
       <table className="w-full text-left text-xs">
         <caption className="sr-only">Import preview</caption>
         <thead className="sticky top-0 bg-paper">
@@ -68,8 +83,9 @@ function PreviewTable({ preview }: { preview: InspectionImportPreview }) {
           </tr>
         </thead>
         <tbody>
-          {preview.rows.map((row) => {
+          {shown.map((row) => {
             const errors = errorsByRow.get(row.row) ?? [];
+            const warnings = warningsByRow.get(row.row) ?? [];
             return (
               <tr key={row.row} className={`border-t border-ink/10 align-top ${errors.length ? 'bg-red-50' : ''}`} data-invalid={errors.length > 0 || undefined}>
                 <td className="px-2 py-1 font-bold">{row.row}</td>
@@ -90,13 +106,18 @@ function PreviewTable({ preview }: { preview: InspectionImportPreview }) {
                 </td>
                 <td className="px-2 py-1">{equipmentText(row)}</td>
                 <td className="px-2 py-1 text-fail">
-                  {errors.length === 0 ? (
+                  {errors.length === 0 && warnings.length === 0 ? (
                     <span className="font-bold text-pass">OK</span>
                   ) : (
                     <ul>
                       {errors.map((error, index) => (
-                        <li key={index}>
+                        <li key={`e${index}`}>
                           <strong>{error.field}</strong>: {error.message}
+                        </li>
+                      ))}
+                      {warnings.map((warning, index) => (
+                        <li key={`w${index}`} className="text-warn">
+                          <strong>Warning, {warning.field}</strong>: {warning.message}
                         </li>
                       ))}
                     </ul>
@@ -173,6 +194,12 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
             Write <strong>{plural(rowCount, 'inspection')}</strong> from “{file?.name}” to the register? Each becomes a record with its own trail entry; a
             wrong row is then corrected one by one.
           </p>
+          {result && result.warnings.length > 0 && (
+            <p className="rounded-md border border-warn/30 bg-amber-50 px-3 py-2 text-sm text-warn">
+              {plural(result.warnings.length, 'warning')} in this file (equipment past its calibration due date or out of service): the rows are
+              written as they stand. Review them with the quality manager.
+            </p>
+          )}
           {importErrors ? <ErrorList errors={importErrors} /> : importer.error ? <ErrorNotice error={importer.error} title="Nothing was imported" /> : null}
           <div className="flex justify-end gap-2">
             <Button variant="secondary" onClick={() => setStep('choose')} disabled={importer.isPending}>
@@ -207,7 +234,7 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
             <>
               <p role="status" className={`text-sm font-bold ${result.valid ? 'text-pass' : 'text-fail'}`}>
                 {result.valid
-                  ? `${plural(rowCount, 'inspection')} read, all valid.`
+                  ? `${plural(rowCount, 'inspection')} read, all valid${result.warnings.length ? ` (${plural(result.warnings.length, 'warning')})` : ''}.`
                   : `${plural(rowCount, 'row')} read; ${plural(result.errors.length, 'problem')} to correct.`}
               </p>
               <ErrorList errors={result.errors} />

@@ -42,6 +42,16 @@ function toInput(values: FormValues): InspectionInput {
   };
 }
 
+/** Recorded as used, but worth a second look: past its calibration due date on the day, or out of service now. */
+function calibrationHint(item: InspectionOptionsView['equipment'][number] | undefined, performedOn: string) {
+  if (!item) return undefined;
+  if (item.calibrationDueOn && performedOn && item.calibrationDueOn < performedOn) {
+    return <span className="font-bold text-warn">Calibration was due {item.calibrationDueOn}, before this date.</span>;
+  }
+  if (item.status !== 'in_service') return <span className="font-bold text-warn">This item is {item.status.replace('_', ' ')} in the register.</span>;
+  return item.calibrationDueOn ? `Calibration due ${item.calibrationDueOn}` : 'No calibration record';
+}
+
 const EQUIPMENT_SLOTS = [
   ['instrumentId', 'instrument'],
   ['probeId', 'probe'],
@@ -143,7 +153,14 @@ export function InspectionForm({
         </SelectField>
       </div>
       {EQUIPMENT_SLOTS.map(([field, kind]) => (
-        <SelectField key={field} label={EQUIPMENT_KIND_LABELS[kind]} value={values[field]} onChange={(e) => set(field, e.target.value)} error={fieldError(field)}>
+        <SelectField
+          key={field}
+          label={EQUIPMENT_KIND_LABELS[kind]}
+          value={values[field]}
+          onChange={(e) => set(field, e.target.value)}
+          error={fieldError(field)}
+          hint={calibrationHint(options.equipment.find((e) => String(e.id) === values[field]), values.performedOn)}
+        >
           <option value="">None recorded</option>
           {options.equipment
             .filter((e) => e.kind === kind)
