@@ -50,10 +50,15 @@ describe('inspection register in the browser', () => {
     // Record one through the form, keyboard and labels only.
     await page.getByRole('button', { name: 'Record inspection' }).click();
     const form = page.getByRole('form', { name: 'Record inspection' });
+    // Sent empty: the API's field errors show at their fields, and nothing is saved.
+    await form.getByRole('button', { name: 'Record inspection' }).click();
+    await form.getByText('choose the technique revision the work was done to').waitFor();
+    await form.getByText('enter the part number').waitFor();
+    expect(await form.getByLabel('Part number').getAttribute('aria-invalid')).toBe('true');
     const revisionSelect = form.getByLabel('Technique revision');
     const revisionValue = await revisionSelect.locator('option', { hasText: `${HOLES.code} rev ${HOLES.revision} —` }).getAttribute('value');
     await revisionSelect.selectOption(revisionValue!);
-    await form.getByLabel('Date performed').fill(yesterday);
+    await form.getByLabel('Date performed').fill('2020-01-01');
     await form.getByLabel('Inspector').selectOption({ label: 'Deniz Calloway' });
     await form.getByLabel('Part number').fill('TFR-7702-40');
     await form.getByLabel('Serial number').fill(`FR-${tag}`);
@@ -62,6 +67,10 @@ describe('inspection register in the browser', () => {
     await form.getByLabel('Result').selectOption('indication_recorded');
     await form.getByLabel('Instrument').selectOption({ label: 'FK2-10482 — Eddy current flaw detector, two-channel' });
     await form.getByLabel('Notes').fill('Non-relevant signal at the countersink');
+    // A date before the revision's approval is refused at the date field.
+    await form.getByRole('button', { name: 'Record inspection' }).click();
+    await form.getByText(/the date is before the revision was approved/).waitFor();
+    await form.getByLabel('Date performed').fill(yesterday);
     await form.getByRole('button', { name: 'Record inspection' }).click();
     await page.getByRole('status').filter({ hasText: `FR-${tag} recorded against ${HOLES.code} rev ${HOLES.revision}` }).waitFor();
     await page.getByRole('searchbox', { name: 'Search' }).fill(`WO-FORM-${tag}`);

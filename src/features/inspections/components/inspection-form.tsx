@@ -24,16 +24,16 @@ interface FormValues {
 const idOrNull = (value: string) => (value ? Number(value) : null);
 const todayIso = () => new Date().toISOString().slice(0, 10);
 
-/** What the form sends: empty selects become 0 / null so the server names the missing field. */
+/** What the form sends: an unchosen select is left out, so the server names the missing field in words. */
 function toInput(values: FormValues): InspectionInput {
   return {
-    techniqueRevisionId: Number(values.techniqueRevisionId) || 0,
+    techniqueRevisionId: (Number(values.techniqueRevisionId) || undefined) as number,
     performedOn: values.performedOn,
     partNumber: values.partNumber,
     serialNumber: values.serialNumber,
     workOrder: values.workOrder,
     customer: values.customer,
-    inspectorId: Number(values.inspectorId) || 0,
+    inspectorId: (Number(values.inspectorId) || undefined) as number,
     result: (values.result || undefined) as InspectionResult,
     instrumentId: idOrNull(values.instrumentId),
     probeId: idOrNull(values.probeId),
