@@ -77,7 +77,7 @@ export function impactRoutes(deps: AppDeps): Router {
     sendCsv(res, `${finding!.number}-impact-worksheet`, WORKSHEET_COLUMNS, impact.rows, deps.clock.now());
   });
 
-  router.put('/findings/:id/impact-scope', requires.can('decide_impact', 'Finding'), async (req, res) => {
+  router.patch('/findings/:id/impact-scope', requires.can('decide_impact', 'Finding'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const input = parseBody(ImpactScopeSchema, req);
     await setImpactScope(deps, res.locals.user!, res.locals.ability!, id, input);

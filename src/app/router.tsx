@@ -38,6 +38,7 @@ export const router = createBrowserRouter([
       { path: 'actions', lazy: () => import('./routes/actions') },
       { path: 'actions/:id', lazy: () => import('./routes/action') },
       { path: 'registers/:tab?', lazy: () => import('./routes/registers') },
+      { path: 'registers/equipment/:id/impact', lazy: () => import('./routes/equipment-impact') },
       { path: 'trail', lazy: () => import('./routes/trail') },
       { path: 'mailbox', lazy: () => import('./routes/mailbox') },
       { path: 'admin/users', lazy: () => import('./routes/admin-users') },

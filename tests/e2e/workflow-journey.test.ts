@@ -70,6 +70,13 @@ describe('the workflow journey in the browser', () => {
     await sendEvent(quality, 'Classify', async (dialog) => {
       await dialog.getByLabel('Class').selectOption('major');
     });
+    // The technique's past inspections are in doubt: each gets a decision before containment is recorded.
+    const worksheet = quality.getByRole('region', { name: 'Impact on past inspections' });
+    await worksheet.getByLabel('Choose every listed inspection').check();
+    await worksheet.getByLabel('Decision', { exact: true }).selectOption({ label: 'Re-inspect' });
+    await worksheet.getByLabel('Reason', { exact: true }).fill('Accepted with the bobbin coil alone: re-inspect with a rotating probe');
+    await worksheet.getByRole('button', { name: 'Record decision' }).click();
+    await worksheet.getByText('Decision recorded.').waitFor();
     await sendEvent(quality, 'Record containment', async (dialog) => {
       await dialog.getByLabel('What was done at once').fill('Technique suspended; bundle quarantined');
     });

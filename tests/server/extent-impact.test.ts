@@ -268,15 +268,15 @@ describe('impact on past inspections', () => {
     await setUpInspections();
     const { cast, finding } = await setUp();
     const current = (await cast.quality.agent.get(`/api/findings/${finding.id}`)).body.version;
-    expect((await cast.quality.agent.put(`/api/findings/${finding.id}/impact-scope`).set('X-CSRF-Token', cast.quality.csrfToken).send({ since: inDays(-130), version: current + 5 })).status).toBe(409);
-    expect((await cast.auditor.agent.put(`/api/findings/${finding.id}/impact-scope`).set('X-CSRF-Token', cast.auditor.csrfToken).send({ since: inDays(-130), version: current })).status).toBe(403);
-    const wider = await expectOk(await cast.quality.agent.put(`/api/findings/${finding.id}/impact-scope`).set('X-CSRF-Token', cast.quality.csrfToken).send({ since: inDays(-130), version: current }));
+    expect((await cast.quality.patch(`/api/findings/${finding.id}/impact-scope`).send({ since: inDays(-130), version: current + 5 })).status).toBe(409);
+    expect((await cast.auditor.patch(`/api/findings/${finding.id}/impact-scope`).send({ since: inDays(-130), version: current })).status).toBe(403);
+    const wider = await expectOk(await cast.quality.patch(`/api/findings/${finding.id}/impact-scope`).send({ since: inDays(-130), version: current }));
     expect(wider.total).toBe(4);
     expect(wider.rows.map((row: { inspection: { id: number } }) => row.inspection.id)).toContain(ids['a-before-approval']);
     const entry = (await trailOf(finding.id)).find((item) => item.event === 'IMPACT_SCOPE_SET')!;
     expect(entry.changes).toMatchObject({ impactSince: { from: null, to: inDays(-130) } });
     const version = (await cast.quality.agent.get(`/api/findings/${finding.id}`)).body.version;
-    const back = await expectOk(await cast.quality.agent.put(`/api/findings/${finding.id}/impact-scope`).set('X-CSRF-Token', cast.quality.csrfToken).send({ since: null, version }));
+    const back = await expectOk(await cast.quality.patch(`/api/findings/${finding.id}/impact-scope`).send({ since: null, version }));
     expect(back.total).toBe(3);
   });
 

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import { EQUIPMENT_KIND_LABELS, EQUIPMENT_KIND_VALUES, EQUIPMENT_STATUSES, EQUIPMENT_STATUS_LABELS, type EquipmentView } from '../../../../shared/schemas/equipment';
 import { DataTable } from '../../../components/ui/data-table';
@@ -71,12 +72,22 @@ export function EquipmentTable() {
       column.display({
         id: 'actions',
         header: () => <span className="sr-only">Actions</span>,
-        cell: ({ row }) =>
-          canEdit ? (
-            <Button variant="ghost" onClick={() => setPending({ kind: 'edit', item: row.original })} aria-label={`Edit ${row.original.description}`}>
-              Edit
-            </Button>
-          ) : null,
+        cell: ({ row }) => (
+          <div className="flex flex-wrap items-center gap-1">
+            <Link
+              className="whitespace-nowrap px-2 text-sm text-lagoon underline"
+              to={`/registers/equipment/${row.original.id}/impact`}
+              aria-label={`Inspections made with ${row.original.serialNumber}`}
+            >
+              Inspections
+            </Link>
+            {canEdit ? (
+              <Button variant="ghost" onClick={() => setPending({ kind: 'edit', item: row.original })} aria-label={`Edit ${row.original.description}`}>
+                Edit
+              </Button>
+            ) : null}
+          </div>
+        ),
       }),
     ],
     [canEdit],

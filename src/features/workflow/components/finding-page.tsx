@@ -15,10 +15,19 @@ import { ClassBadge, DueDate, StateBadge } from './state-badge';
 import { CLASS_LABELS } from './labels';
 
 /**
- * A finding's page. `evidence` is the slot for the evidence panel (the
- * evidence feature renders it; the route passes it in), shown under the details.
+ * A finding's page. `evidence` is the slot for the evidence panel and
+ * `sections` for other features' panels (extent of condition, impact); the
+ * route passes them in, and they are shown under the details.
  */
-export function FindingPage({ id, evidence }: { id: number; evidence?: (finding: FindingDetailView) => ReactNode }) {
+export function FindingPage({
+  id,
+  evidence,
+  sections,
+}: {
+  id: number;
+  evidence?: (finding: FindingDetailView) => ReactNode;
+  sections?: (finding: FindingDetailView) => ReactNode;
+}) {
   const finding = useFinding(id);
   const [assigning, setAssigning] = useState(false);
   if (finding.isLoading) return <Loading what="Loading the finding" />;
@@ -80,6 +89,7 @@ export function FindingPage({ id, evidence }: { id: number; evidence?: (finding:
           </Panel>
         </div>
       </div>
+      {sections ? sections(f) : null}
       {assigning && (
         <Dialog open title={`Assign the corrective action for ${f.number}`} onClose={() => setAssigning(false)}>
           <AssignActionForm findingId={f.id} authorId={f.author?.id ?? null} suggestedDueDate={f.dueDate} onDone={() => setAssigning(false)} />

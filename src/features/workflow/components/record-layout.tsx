@@ -14,11 +14,4 @@ export function Facts({ items }: { items: Array<[string, ReactNode]> }) {
   );
 }
 
-export function Panel({ title, children }: { title: string; children: ReactNode }) {
-  return (
-    <section className="rounded-lg border border-ink/10 bg-white p-4" aria-label={title}>
-      <h2 className="mb-3 text-sm font-bold uppercase tracking-wide text-ink-soft">{title}</h2>
-      {children}
-    </section>
-  );
-}
+export { Panel } from '../../../components/ui/panel';

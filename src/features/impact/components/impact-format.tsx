@@ -1,0 +1,8 @@
+// Small formatting helpers of the impact views.
+
+/** A record state in words ("in review"), for lists where a full badge would be noise. */
+export function StateText({ state }: { state: string }) {
+  return <span className="rounded-full bg-lagoon-soft px-2 py-0.5 text-xs font-bold">{state.replace(/_/g, ' ')}</span>;
+}
+
+export const formatUtc = (iso: string) => `${iso.slice(0, 16).replace('T', ' ')} UTC`;
