@@ -290,6 +290,9 @@ describe('impact on past inspections', () => {
     expect(refused.status).toBe(422);
     expect(refused.body.error.message).toMatch(/^3 past inspection\(s\) .* no containment decision/);
 
+    const home = (await cast.quality.agent.get('/api/home')).body.items.find((item: { recordType: string; id: number }) => item.recordType === 'finding' && item.id === finding.id);
+    expect(home.todo).toMatch(/^Decide the 3 past inspection\(s\) in doubt/);
+
     const outside = await cast.quality.post(`/api/findings/${finding.id}/containment-decisions`).send({ inspectionIds: [ids['b-1']], decision: 'not_affected', reason: 'Revision B' });
     expect(outside.status).toBe(400);
     expect((await cast.auditor.post(`/api/findings/${finding.id}/containment-decisions`).send({ inspectionIds: [ids['a-mid']], decision: 'reinspect', reason: 'r' })).status).toBe(403);
