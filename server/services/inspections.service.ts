@@ -68,8 +68,15 @@ export async function getInspection(id: number, transaction?: Transaction): Prom
 }
 
 /** Loads the facts for one record and refuses it (400 with field details) when any check fails. */
-export async function assertInspectionValid(deps: AppDeps, input: InspectionInput, transaction: Transaction): Promise<InspectionFacts> {
+export async function assertInspectionValid(
+  deps: AppDeps,
+  input: InspectionInput,
+  transaction: Transaction,
+  { recordedInspectorId }: { recordedInspectorId?: number } = {},
+): Promise<InspectionFacts> {
   const facts = await loadInspectionFacts([input], transaction);
+  // A correction may keep the inspector it was recorded with, even one who has since left.
+  if (recordedInspectorId !== undefined && input.inspectorId === recordedInspectorId) facts.activeUsers.add(recordedInspectorId);
   const errors = inspectionRuleErrors(input, facts, deps.clock.now());
   if (errors.length) throw invalidInspection(errors);
   return facts;
@@ -100,7 +107,7 @@ export async function updateInspection(deps: AppDeps, ability: AppAbility, actor
     ForbiddenError.from(ability).throwUnlessCan('update', subject('Inspection', row.get({ plain: true })));
     if (row.version !== input.version) throw staleVersion();
     const { version: _version, ...fields } = input;
-    const facts = await assertInspectionValid(deps, fields, transaction);
+    const facts = await assertInspectionValid(deps, fields, transaction, { recordedInspectorId: row.inspectorId });
     const next = { ...fields, techniqueId: facts.revisions.get(fields.techniqueRevisionId)!.techniqueId };
     const changes: Record<string, { before: unknown; after: unknown }> = {};
     for (const [key, after] of Object.entries(next) as [keyof typeof next, unknown][]) {

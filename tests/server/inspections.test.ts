@@ -202,6 +202,21 @@ describe('inspection register', () => {
     expect((await quality.agent.get('/api/inspections/999999999')).status).toBe(404);
   });
 
+  it('when the inspector has left since, then a correction may keep them but not name another inactive person', async () => {
+    const quality = await signedInAs(context, ['quality_manager']);
+    const leaver = await makeUser({ roles: ['technician'] });
+    const created = (await quality.post('/api/inspections').send(inspectionBody(fixture, leaver))).body;
+    await leaver.update({ active: false });
+    const kept = await quality.patch(`/api/inspections/${created.id}`).send({ ...inspectionBody(fixture, leaver, { result: 'reject' }), version: created.version });
+    expect(kept.status).toBe(200);
+    expect(kept.body).toMatchObject({ result: 'reject', inspector: { id: leaver.id } });
+    const other = await makeUser({ roles: ['technician'] });
+    await other.update({ active: false });
+    const swapped = await quality.patch(`/api/inspections/${created.id}`).send({ ...inspectionBody(fixture, other), version: kept.body.version });
+    expect(swapped.status).toBe(400);
+    expect(detailsOf(swapped.body)).toEqual([expect.objectContaining({ path: 'inspectorId' })]);
+  });
+
   it('when a technician corrects a row another person recorded, then it is 403; their own row they may correct', async () => {
     const technicianUser = await makeUser({ roles: ['technician'] });
     const technician = await signIn(context.app, technicianUser);

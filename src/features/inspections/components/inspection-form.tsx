@@ -137,6 +137,7 @@ export function InspectionForm({
             {p.name}
           </option>
         ))}
+        {item && !options.inspectors.some((p) => p.id === item.inspector.id) && <option value={item.inspector.id}>{item.inspector.name} (no longer active)</option>}
       </SelectField>
       <TextField label="Part number" value={values.partNumber} maxLength={80} onChange={(e) => set('partNumber', e.target.value)} error={fieldError('partNumber')} required />
       <TextField label="Serial number" value={values.serialNumber} maxLength={80} onChange={(e) => set('serialNumber', e.target.value)} error={fieldError('serialNumber')} required />
