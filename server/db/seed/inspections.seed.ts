@@ -36,6 +36,10 @@ const PARTS: Record<string, { partNumber: string; serialPrefix: string; customer
     { partNumber: 'BAR-2024-25', serialPrefix: 'HT', customers: [1, 6] },
     { partNumber: 'BAR-2024-32', serialPrefix: 'HT', customers: [1] },
   ],
+  'TAC-ET-019': [
+    { partNumber: 'BAR-2024-40', serialPrefix: 'HT', customers: [1, 6] },
+    { partNumber: 'BAR-2024-40L', serialPrefix: 'HT', customers: [1, 4] },
+  ],
   'TAC-ET-023': [
     { partNumber: 'HX-1905-B70', serialPrefix: 'BND', customers: [6, 3] },
     { partNumber: 'HX-1905-B72', serialPrefix: 'BND', customers: [6] },
