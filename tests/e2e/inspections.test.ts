@@ -71,6 +71,7 @@ describe('inspection register in the browser', () => {
     await form.getByRole('button', { name: 'Record inspection' }).click();
     await form.getByText(/the date is before the revision was approved/).waitFor();
     await form.getByLabel('Date performed').fill(yesterday);
+    await page.screenshot({ path: screenshotPath('inspections-form'), fullPage: true });
     await form.getByRole('button', { name: 'Record inspection' }).click();
     await page.getByRole('status').filter({ hasText: `FR-${tag} recorded against ${HOLES.code} rev ${HOLES.revision}` }).waitFor();
     await page.getByRole('searchbox', { name: 'Search' }).fill(`WO-FORM-${tag}`);
