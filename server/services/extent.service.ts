@@ -14,6 +14,7 @@ import type { ExtentRunView, ExtentTechnique, FindingFamilyView, RaiseExtentFind
 import { ExtentRun, Finding, PolicyHead, Technique, TechniqueRevision, User } from '../models';
 import { AppError, forbidden, notAllowedNow, notFound } from '../lib/app-error';
 import { appendTrail } from './trail.service';
+import { contentHash } from '../lib/content-hash';
 import { allocateRecordNumber } from './record-numbers.service';
 import { loadOrganisationPolicy } from './policy.service';
 import { findingRuleOf, ruleFailuresOfRevision, type FindingRule } from './finding-rule';
@@ -120,6 +121,8 @@ export async function runExtent(deps: AppDeps, actor: EventActor, ability: AppAb
         engineVersion: CHECKLIST_ENGINE_VERSION,
         policyVersion,
         evaluated: techniques.length,
+        // The stored list (extent_runs.techniques) can be checked against this.
+        listSha256: contentHash(techniques),
         failing: failing.map((technique) => `${technique.code} rev ${technique.revision}`),
         sameOrientation: failing.filter((technique) => technique.sameOrientation).map((technique) => technique.code),
         sameCoilType: failing.filter((technique) => technique.sameCoilType).map((technique) => technique.code),

@@ -2,8 +2,7 @@
 // allowedEvents), its evidence list with hashes, its signatures and its whole
 // trail, plus the SHA-256 of that content's canonical JSON (RFC 8785), printed
 // on every page of its PDF so a paper copy can be matched to the record.
-import { createHash } from 'node:crypto';
-import canonicalize from 'canonicalize';
+import { contentHash } from '../lib/content-hash';
 import { ForbiddenError } from '@casl/ability';
 import { Op } from 'sequelize';
 import type { AppDeps } from '../app-deps';
@@ -45,10 +44,6 @@ function withoutPerUserFields<T>(value: T): T {
     ) as T;
   }
   return value;
-}
-
-export function recordHash(content: unknown): string {
-  return createHash('sha256').update(canonicalize(content) ?? '').digest('hex');
 }
 
 export async function trailOf(records: { recordType: string; recordId: number }[]): Promise<TrailEntryView[]> {
@@ -127,7 +122,7 @@ function envelope<T>(deps: AppDeps, exporter: Exporter, content: T): ExportEnvel
     formatVersion: 1,
     exportedAt: deps.clock.now().toISOString(),
     exportedBy: { id: exporter.user.id, displayName: exporter.user.displayName },
-    sha256: recordHash(content),
+    sha256: contentHash(content),
     content,
   };
 }

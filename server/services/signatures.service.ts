@@ -3,15 +3,10 @@
 // the meaning, the UTC time and the SHA-256 of the record's canonical content
 // (RFC 8785 JSON) as it stood when signed, so a later change to what was signed
 // is detectable by recomputing the hash.
-import { createHash } from 'node:crypto';
-import canonicalize from 'canonicalize';
 import type { Transaction } from 'sequelize';
 import { Signature } from '../models';
 import type { SignatureView } from '../../shared/schemas/workflow';
-
-export function contentHash(content: unknown): string {
-  return createHash('sha256').update(canonicalize(content) ?? '').digest('hex');
-}
+import { contentHash } from '../lib/content-hash';
 
 export async function recordSignature(
   transaction: Transaction,

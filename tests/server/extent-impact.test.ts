@@ -8,6 +8,7 @@ import { ContainmentDecision, Equipment, ExtentRun, Finding, Inspection, Techniq
 import { createIsolatedDatabase, createTestContext, signedInAs, type SignedIn, type TestContext } from '../helpers/test-app';
 import { expectOk, inDays, makeCast, send, today, type Cast } from '../helpers/workflow';
 import { binary, pdfPages } from '../helpers/pdf';
+import { contentHash } from '../../server/lib/content-hash';
 import { DEMO_TECHNIQUES } from '../../shared/domain/demo-techniques';
 import { CHECKLIST_ENGINE_VERSION, DEFAULT_POLICY, evaluateTechnique, type Technique } from '../../shared/domain/checklist';
 
@@ -142,6 +143,7 @@ describe('extent of condition', () => {
     expect(entry.userId).toBe(cast.quality.user.id);
     expect(entry.changes).toMatchObject({ runId: response.id, rule: 'orientation-coverage', engineVersion: CHECKLIST_ENGINE_VERSION, policyVersion: 0, evaluated: techniques.length });
     expect((entry.changes as { failing: string[] }).failing).toHaveLength(4);
+    expect((entry.changes as { listSha256: string }).listSha256).toBe(contentHash(stored!.techniques));
   });
 
   it('when someone other than a quality manager runs it, then 403 and no run is recorded', async () => {
