@@ -155,10 +155,12 @@ type Step = 'choose' | 'confirm' | 'done';
 export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void }) {
   const [file, setFile] = useState<File | null>(null);
   const [step, setStep] = useState<Step>('choose');
+  const [tooLarge, setTooLarge] = useState<string | null>(null);
   const preview = usePreviewInspectionImport();
   const importer = useImportInspections();
 
   const close = () => {
+    setTooLarge(null);
     setFile(null);
     setStep('choose');
     preview.reset();
@@ -170,7 +172,14 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
     setStep('choose');
     importer.reset();
     preview.reset();
-    if (chosen) preview.mutate(chosen);
+    setTooLarge(null);
+    if (!chosen) return;
+    // The server refuses it too (413); saying so here saves uploading it.
+    if (chosen.size > INSPECTION_IMPORT_MAX_BYTES) {
+      setTooLarge(`“${chosen.name}” is larger than the ${INSPECTION_IMPORT_MAX_BYTES / (1024 * 1024)} MB limit; split it into files of at most ${INSPECTION_IMPORT_MAX_ROWS} rows.`);
+      return;
+    }
+    preview.mutate(chosen);
   };
   const result = preview.data;
   const rowCount = result?.rows.length ?? 0;
@@ -228,6 +237,11 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
               onChange={(e) => choose(e.target.files?.[0] ?? null)}
             />
           </div>
+          {tooLarge && (
+            <p role="alert" className="rounded-md border border-fail/30 bg-red-50 px-3 py-2 text-sm text-fail">
+              {tooLarge}
+            </p>
+          )}
           {preview.isPending && <Loading what="Reading the file" />}
           {preview.error ? <ErrorNotice error={preview.error} title="The file could not be read" /> : null}
           {result && (
