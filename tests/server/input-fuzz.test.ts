@@ -16,9 +16,14 @@ import { CertificationCreateSchema } from '../../shared/schemas/certification';
 import { EquipmentCreateSchema } from '../../shared/schemas/equipment';
 import { ActionCreateSchema, ActionEventSchema, AuditCreateSchema, AuditEventSchema, FindingEventSchema } from '../../shared/schemas/workflow';
 import { TechniqueCreateSchema } from '../../shared/schemas/technique-register';
+import { RaiseExtentFindingsSchema } from '../../shared/schemas/extent';
+import { ContainmentDecisionsSchema, ImpactScopeSchema } from '../../shared/schemas/impact';
 
 const REFUSALS = new Set([400, 403, 404, 409, 413, 415, 422]);
-const WRITTEN_TABLES = ['users', 'areas', 'role_assignments', 'findings', 'corrective_actions', 'audits', 'techniques', 'technique_revisions', 'certifications', 'equipment', 'trail_entries'];
+const WRITTEN_TABLES = [
+  'users', 'areas', 'role_assignments', 'findings', 'corrective_actions', 'audits', 'techniques', 'technique_revisions', 'certifications', 'equipment',
+  'extent_runs', 'containment_decisions', 'trail_entries',
+];
 
 let context: TestContext;
 let everyone: SignedIn;
@@ -63,6 +68,9 @@ const routes: [string, 'post' | 'patch', () => string, z.ZodType][] = [
   ['send a finding event', 'post', () => `/api/findings/${ids.finding}/events`, FindingEventSchema],
   ['assign a corrective action', 'post', () => '/api/actions', ActionCreateSchema],
   ['send a corrective action event', 'post', () => `/api/actions/${ids.action}/events`, ActionEventSchema],
+  ['raise extent findings', 'post', () => `/api/findings/${ids.finding}/extent-findings`, RaiseExtentFindingsSchema],
+  ['record containment decisions', 'post', () => `/api/findings/${ids.finding}/containment-decisions`, ContainmentDecisionsSchema],
+  ['set the impact scope', 'patch', () => `/api/findings/${ids.finding}/impact-scope`, ImpactScopeSchema],
 ];
 
 describe.each(routes)('when fuzzed bodies are sent to %s', (_name, method, url, schema) => {
