@@ -79,7 +79,9 @@ export function inspectionRoutes(deps: AppDeps): Router {
 
   router.post('/inspections/import', requires.can('create', 'Inspection'), upload, async (req, res) => {
     parseBody(NoFieldsSchema, req);
-    res.status(201).json(await importInspections(deps, res.locals.user!.id, req.file!.buffer, req.file!.originalname));
+    // The file's name goes on each row's trail entry: bounded, as the client chose it.
+    const fileName = (req.file!.originalname || 'upload.csv').slice(0, 200);
+    res.status(201).json(await importInspections(deps, res.locals.user!.id, req.file!.buffer, fileName));
   });
 
   return router;
