@@ -49,6 +49,13 @@ const PARTS: Record<string, { partNumber: string; serialPrefix: string; customer
     { partNumber: 'TLJ-0331-R', serialPrefix: 'FS', customers: [2, 4] },
   ],
 };
+/**
+ * Techniques the demo story suspends, with the days before the demo's now: the
+ * orientation finding's containment suspends TAC-ET-023 63 days ago, so no
+ * inspection is made to it after that.
+ */
+const SUSPENDED_DAYS_AGO: Record<string, number> = { 'TAC-ET-023': 64 };
+
 const GENERIC_PARTS = [{ partNumber: 'TGN-0001-00', serialPrefix: 'GN', customers: [0, 1, 2] }];
 
 const NOTES: Record<Exclude<InspectionResult, 'accept'>, string[]> = {
@@ -112,7 +119,9 @@ export const seedInspections: SeedStep = async (context) => {
       const parts = PARTS[code] ?? GENERIC_PARTS;
 
       const firstDay = Date.parse(`${isoDay(revision.approvedAt!)}T00:00:00Z`);
-      const lastDay = Date.parse(`${revision.supersededAt ? isoDay(revision.supersededAt) : today}T00:00:00Z`);
+      const suspendedDay = SUSPENDED_DAYS_AGO[code] === undefined ? today : isoDay(new Date(now.getTime() - SUSPENDED_DAYS_AGO[code] * DAY_MS));
+      const lastOpenDay = revision.supersededAt ? isoDay(revision.supersededAt) : today;
+      const lastDay = Date.parse(`${lastOpenDay < suspendedDay ? lastOpenDay : suspendedDay}T00:00:00Z`);
       const span = Math.max(0, Math.round((lastDay - firstDay) / DAY_MS));
       const count = random.int(20, 60);
       const days = Array.from({ length: count }, () => random.int(0, span)).sort((a, b) => a - b);
