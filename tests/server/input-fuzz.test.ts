@@ -18,11 +18,12 @@ import { ActionCreateSchema, ActionEventSchema, AuditCreateSchema, AuditEventSch
 import { TechniqueCreateSchema } from '../../shared/schemas/technique-register';
 import { RaiseExtentFindingsSchema } from '../../shared/schemas/extent';
 import { ContainmentDecisionsSchema, ImpactScopeSchema } from '../../shared/schemas/impact';
+import { InspectionFieldsSchema } from '../../shared/schemas/inspection';
 
 const REFUSALS = new Set([400, 403, 404, 409, 413, 415, 422]);
 const WRITTEN_TABLES = [
   'users', 'areas', 'role_assignments', 'findings', 'corrective_actions', 'audits', 'techniques', 'technique_revisions', 'certifications', 'equipment',
-  'extent_runs', 'containment_decisions', 'trail_entries',
+  'inspections', 'extent_runs', 'containment_decisions', 'trail_entries',
 ];
 
 let context: TestContext;
@@ -68,6 +69,7 @@ const routes: [string, 'post' | 'patch', () => string, z.ZodType][] = [
   ['send a finding event', 'post', () => `/api/findings/${ids.finding}/events`, FindingEventSchema],
   ['assign a corrective action', 'post', () => '/api/actions', ActionCreateSchema],
   ['send a corrective action event', 'post', () => `/api/actions/${ids.action}/events`, ActionEventSchema],
+  ['record an inspection', 'post', () => '/api/inspections', InspectionFieldsSchema],
   ['raise extent findings', 'post', () => `/api/findings/${ids.finding}/extent-findings`, RaiseExtentFindingsSchema],
   ['record containment decisions', 'post', () => `/api/findings/${ids.finding}/containment-decisions`, ContainmentDecisionsSchema],
   ['set the impact scope', 'patch', () => `/api/findings/${ids.finding}/impact-scope`, ImpactScopeSchema],
