@@ -34,6 +34,8 @@ export function presentFinding(finding: Finding, extra: { allowedEvents: string[
     objectiveEvidence: finding.objectiveEvidence,
     resultValues: finding.resultValues,
     class: finding.class,
+    extentOfId: finding.extentOfId ?? null,
+    proposedClass: finding.proposedClass ?? null,
     classificationNote: finding.classificationNote,
     containment: finding.containment,
     containmentDueDate: finding.containmentDueDate,

@@ -12,7 +12,7 @@ import type { FindingCreateInput, FindingDetailView, FindingListQuerySchema, Fin
 import type { RuleResult } from '../../shared/domain/checklist';
 import { appendTrail } from './trail.service';
 import { allocateRecordNumber } from './record-numbers.service';
-import { allowedEventsForUser, factsForMany } from './workflow/record-kinds';
+import { allowedEventsForUser, findingFacts } from './workflow/record-kinds';
 import { retryOnDeadlock } from './workflow/retry';
 import { presentFinding, presentFindingDetail } from '../presenters/finding.presenter';
 import { todayIso } from '../presenters/workflow-refs';
@@ -192,7 +192,7 @@ export async function listFindings(
     }),
     Finding.count({ where, include: query.owner ? [{ model: CorrectiveAction, as: 'action', attributes: [] }] : [] }),
   ]);
-  const facts = await factsForMany('finding', rows.map((row) => row.id), undefined, now);
+  const facts = await findingFacts(rows, now);
   return {
     items: rows.map((finding) =>
       presentFinding(finding, {
@@ -211,7 +211,7 @@ export async function getFinding(deps: AppDeps, ability: AppAbility, id: number)
   const now = deps.clock.now();
   const [signatures, facts] = await Promise.all([
     Signature.findAll({ where: { recordType: 'finding', recordId: id }, order: [['signedAt', 'ASC']] }),
-    factsForMany('finding', [id], undefined, now),
+    findingFacts([finding], now),
   ]);
   return presentFindingDetail(finding, {
     now,

@@ -7,7 +7,7 @@ import type { HomeItem, HomeView } from '../../shared/schemas/workflow';
 import type { EventActor } from './record-events.service';
 import { findingIncludes } from './findings.service';
 import { actionIncludes } from './actions.service';
-import { allowedEventsForUser, factsForMany, openFindingCounts } from './workflow/record-kinds';
+import { allowedEventsForUser, factsForMany, findingFacts as containmentFacts, openFindingCounts } from './workflow/record-kinds';
 import { findingOverdue } from '../presenters/finding.presenter';
 import { actionOverdue } from '../presenters/action.presenter';
 import { todayIso } from '../presenters/workflow-refs';
@@ -53,7 +53,7 @@ export async function waitingOn(deps: AppDeps, actor: EventActor, ability: AppAb
   const [auditCounts, actionFacts, findingFacts] = await Promise.all([
     openFindingCounts(audits.map((a) => a.id)),
     factsForMany('action', actions.map((a) => a.id)),
-    factsForMany('finding', findings.map((f) => f.id), undefined, now),
+    containmentFacts(findings, now),
   ]);
 
   for (const audit of audits) {

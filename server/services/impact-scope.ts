@@ -63,27 +63,31 @@ export function scopeWhere(scope: ImpactScope): WhereOptions {
   };
 }
 
+/** Inspections this finding has not decided on (findingId is an integer key, never user text). */
+function notDecidedBy(findingId: number): WhereOptions {
+  return { id: { [Op.notIn]: literal(`(SELECT inspection_id FROM containment_decisions WHERE finding_id = ${Number(findingId)})`) } };
+}
+
 /** Inspections in the scope that have no decision of this finding yet. */
 export async function countUndecided(findingId: number, scope: ImpactScope, transaction?: Transaction): Promise<number> {
   if (!scope.revisions.length) return 0;
-  return Inspection.count({
-    where: {
-      [Op.and]: [
-        scopeWhere(scope),
-        // findingId is an integer primary key, never user text.
-        { id: { [Op.notIn]: literal(`(SELECT inspection_id FROM containment_decisions WHERE finding_id = ${Number(findingId)})`) } },
-      ],
-    },
-    transaction,
-  });
+  return Inspection.count({ where: { [Op.and]: [scopeWhere(scope), notDecidedBy(findingId)] }, transaction });
 }
 
-/** The containment facts of findings: undecided inspections, counted only where they matter (a finding in containment). */
-export async function undecidedCounts(findingIds: number[], now: Date, transaction?: Transaction): Promise<Map<number, number>> {
-  const counts = new Map<number, number>(findingIds.map((id) => [id, 0]));
-  if (!findingIds.length) return counts;
-  const inContainment = await Finding.findAll({ where: { id: { [Op.in]: findingIds }, state: 'containment' }, transaction });
-  for (const finding of inContainment) {
+/**
+ * The containment facts of findings: undecided inspections, counted only where
+ * they matter (a finding in containment). Takes loaded rows, or ids to load.
+ * A finding whose technique has no undecided inspection at all needs no engine run.
+ */
+export async function undecidedCounts(findings: Finding[] | number[], now: Date, transaction?: Transaction): Promise<Map<number, number>> {
+  const rows = typeof findings[0] === 'number'
+    ? await Finding.findAll({ where: { id: { [Op.in]: findings as number[] }, state: 'containment' }, transaction })
+    : (findings as Finding[]);
+  const counts = new Map<number, number>(rows.map((finding) => [finding.id, 0]));
+  for (const finding of rows) {
+    if (finding.state !== 'containment' || finding.techniqueId === null) continue;
+    const anyUndecided = await Inspection.count({ where: { techniqueId: finding.techniqueId, ...notDecidedBy(finding.id) }, transaction });
+    if (anyUndecided === 0) continue;
     counts.set(finding.id, await countUndecided(finding.id, await impactScopeOf(finding, now, transaction), transaction));
   }
   return counts;

@@ -258,6 +258,9 @@ export interface FindingView extends RecordBase {
   objectiveEvidence: string;
   resultValues: Record<string, unknown> | null;
   class: string | null;
+  /** A finding raised from another's extent of condition: that finding, and the class proposed for this one. */
+  extentOfId: number | null;
+  proposedClass: string | null;
   classificationNote: string | null;
   containment: string | null;
   containmentDueDate: string | null;

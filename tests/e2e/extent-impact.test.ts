@@ -102,7 +102,10 @@ describe('extent of condition and impact in the browser', () => {
     await extent.getByRole('link', { name: linkedNumber }).first().click();
     await quality.getByRole('heading', { name: new RegExp(`^${linkedNumber}: TAC-ET-019: center-effect \\(extent of ${findingNumber}\\)`) }).waitFor();
     await quality.getByRole('region', { name: 'Extent of condition' }).getByRole('link', { name: findingNumber }).waitFor();
-    await quality.getByRole('group', { name: 'Actions' }).getByRole('button', { name: 'Classify' }).waitFor();
+    await quality.getByRole('group', { name: 'Actions' }).getByRole('button', { name: 'Classify' }).click();
+    const classify = quality.getByRole('dialog');
+    expect(await classify.getByLabel('Class').inputValue()).toBe('major');
+    await classify.getByRole('button', { name: 'Cancel' }).click();
   });
 
   it('when a probe is found out of calibration, then its inspections since the last calibration are listed by customer and part', async () => {

@@ -194,8 +194,10 @@ describe('extent of condition', () => {
       const [entry] = await trailOf(created.id);
       expect(entry).toMatchObject({ event: 'FINDING_RAISED' });
       expect(entry.changes).toMatchObject({ extentOf: finding.number, extentRunId: run.id, proposedClass: 'major', state: 'in_review' });
-      // It goes on like any finding: the quality manager classifies it.
-      expect((await cast.quality.agent.get(`/api/findings/${created.id}`)).body.allowedEvents).toContain('CLASSIFY');
+      // It goes on like any finding: the quality manager classifies it, starting from the class proposed.
+      const view = (await cast.quality.agent.get(`/api/findings/${created.id}`)).body;
+      expect(view).toMatchObject({ extentOfId: finding.id, proposedClass: 'major' });
+      expect(view.allowedEvents).toContain('CLASSIFY');
     }
     expect((await trailOf(finding.id)).some((entry) => entry.event === 'EXTENT_FINDINGS_RAISED')).toBe(true);
 

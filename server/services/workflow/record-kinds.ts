@@ -66,6 +66,12 @@ export async function openFindingCounts(auditIds: number[], transaction?: Transa
   return counts;
 }
 
+/** The containment facts of findings already loaded (no query for those not in containment). */
+export async function findingFacts(findings: Finding[], now: Date, transaction?: Transaction): Promise<Map<number, FactsFor['finding']>> {
+  const counts = await undecidedCounts(findings, now, transaction);
+  return new Map(findings.map((finding) => [finding.id, { undecidedInspectionCount: counts.get(finding.id) ?? 0 }]));
+}
+
 /** The server facts of many records of one kind (`now` judges the registers behind a finding's impact scope). */
 export async function factsForMany(
   kind: RecordKind,

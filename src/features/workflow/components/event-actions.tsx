@@ -10,7 +10,14 @@ const PATHS: Record<RecordKind, RecordPath> = { audit: 'audits', finding: 'findi
 const DANGER = ['CANCEL', 'WITHDRAW', 'NOT_EFFECTIVE', 'RETURN_PLAN', 'RETURN', 'REJECT_EXTENSION'];
 
 /** One button per event the server says this person may send now, each opening the form the event needs. */
-export function EventActions({ kind, record }: { kind: RecordKind; record: { id: number; version: number; allowedEvents: string[] } }) {
+export function EventActions({
+  kind,
+  record,
+}: {
+  kind: RecordKind;
+  /** `proposedClass`: a finding raised from an extent of condition starts its classification with it. */
+  record: { id: number; version: number; allowedEvents: string[]; proposedClass?: string | null };
+}) {
   const [open, setOpen] = useState<string | null>(null);
   const mutation = useRecordEvent(PATHS[kind], record.id);
   const close = () => {
@@ -31,6 +38,7 @@ export function EventActions({ kind, record }: { kind: RecordKind; record: { id:
           <EventForm
             kind={kind}
             type={open}
+            proposedClass={record.proposedClass ?? null}
             pending={mutation.isPending}
             error={mutation.error}
             onCancel={close}

@@ -35,6 +35,7 @@ function fieldError(error: unknown, path: string): string | undefined {
 export function EventForm({
   kind,
   type,
+  proposedClass = null,
   pending,
   error,
   onSubmit,
@@ -42,6 +43,7 @@ export function EventForm({
 }: {
   kind: RecordKind;
   type: string;
+  proposedClass?: string | null;
   pending: boolean;
   error: unknown;
   onSubmit(payload: Payload): void;
@@ -50,7 +52,7 @@ export function EventForm({
   const meaning = signedMeaningOf(kind, type);
   const [text, setText] = useState('');
   const [password, setPassword] = useState('');
-  const [findingClass, setFindingClass] = useState('');
+  const [findingClass, setFindingClass] = useState(proposedClass ?? '');
   const [method, setMethod] = useState('five_whys');
   const [plan, setPlan] = useState([{ description: '', dueDate: '' }]);
   const [dueDate, setDueDate] = useState('');
@@ -96,7 +98,14 @@ export function EventForm({
   } else if (type === 'CLASSIFY') {
     body = (
       <>
-        <SelectField label="Class" required value={findingClass} onChange={(e) => setFindingClass(e.target.value)} error={fieldError(error, 'class')}>
+        <SelectField
+          label="Class"
+          required
+          value={findingClass}
+          onChange={(e) => setFindingClass(e.target.value)}
+          error={fieldError(error, 'class')}
+          hint={proposedClass ? `${CLASS_LABELS[proposedClass as keyof typeof CLASS_LABELS] ?? proposedClass} was proposed when this finding was raised from an extent of condition` : undefined}
+        >
           <option value="">Choose a class</option>
           {FINDING_CLASSES.map((value) => (
             <option key={value} value={value}>
