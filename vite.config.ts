@@ -59,6 +59,8 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 120_000,
           hookTimeout: 180_000,
+          // expect.poll gives up after 1 s by default: too short for a list to refetch on a busy machine.
+          expect: { poll: { timeout: 15_000 } },
         },
       },
     ],
