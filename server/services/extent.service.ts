@@ -19,6 +19,7 @@ import { allocateRecordNumber } from './record-numbers.service';
 import { loadOrganisationPolicy } from './policy.service';
 import { findingRuleOf, ruleFailuresOfRevision, type FindingRule } from './finding-rule';
 import { retryOnDeadlock } from './workflow/retry';
+import { NEW_FINDING_FIELDS } from './findings.service';
 import type { EventActor } from './record-events.service';
 
 const HAND_RAISED = 'This finding was raised by hand and names no checklist result: an extent run needs a finding raised from a failed checklist rule';
@@ -203,16 +204,7 @@ export async function raiseExtentFindings(
             requirement: original.requirement,
             objectiveEvidence: `Extent-of-condition run ${run.id} from ${original.number} on ${run.runAt.toISOString().slice(0, 10)} (engine ${run.engineVersion}, policy version ${run.policyVersion}): ${entry.code} rev ${entry.revision} fails "${run.rule}". ${describeFailures(entry)}`,
             resultValues: entry.failures[0]?.values ?? null,
-            class: null,
-            classificationNote: null,
-            containment: null,
-            containmentDueDate: null,
-            dueDate: null,
-            effectivenessNote: null,
-            notEffectiveReason: null,
-            closureNote: null,
-            withdrawReason: null,
-            closedAt: null,
+            ...NEW_FINDING_FIELDS,
             extentOfId: original.id,
             proposedClass,
             authorId: actor.id,

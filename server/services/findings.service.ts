@@ -30,6 +30,20 @@ export const findingIncludes = [
 
 const RAISING_STATES = ['fieldwork', 'reporting'];
 
+/** What a new finding has not got yet: class, containment, due dates and the notes of later steps. */
+export const NEW_FINDING_FIELDS = {
+  class: null,
+  classificationNote: null,
+  containment: null,
+  containmentDueDate: null,
+  dueDate: null,
+  effectivenessNote: null,
+  notEffectiveReason: null,
+  closureNote: null,
+  withdrawReason: null,
+  closedAt: null,
+} as const;
+
 function describeValues(values: RuleResult['values']): string {
   return Object.entries(values)
     .map(([key, value]) => `${key} = ${value === null ? '—' : String(value)}`)
@@ -101,16 +115,7 @@ export async function raiseFinding(
           requirement: input.requirement ?? prefill!.requirement,
           objectiveEvidence: input.objectiveEvidence ?? prefill!.objectiveEvidence,
           resultValues,
-          class: null,
-          classificationNote: null,
-          containment: null,
-          containmentDueDate: null,
-          dueDate: null,
-          effectivenessNote: null,
-          notEffectiveReason: null,
-          closureNote: null,
-          withdrawReason: null,
-          closedAt: null,
+          ...NEW_FINDING_FIELDS,
           authorId: actor.id,
           areaId: audit.areaId,
           state: 'raised',

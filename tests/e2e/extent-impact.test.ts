@@ -1,39 +1,21 @@
 // From one failed check to the similar techniques and the affected past
 // inspections, clicked through in Chromium by the demo auditor and quality manager.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { inject } from 'vitest';
-import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { browserSessions, isoDay, sendEvent } from '../helpers/record-pages';
 
 let browser: Browser;
-const contexts: BrowserContext[] = [];
+const sessions = browserSessions(() => browser);
+const as = sessions.as;
 beforeAll(async () => {
   browser = await launchBrowser();
 });
 afterAll(async () => {
-  for (const context of contexts) await context.close().catch(() => undefined);
+  await sessions.closeAll();
   await browser?.close();
 });
-
-async function as(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  await signInAs(page, email);
-  await page.getByRole('heading', { level: 1 }).waitFor();
-  return page;
-}
-
-const isoDay = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
-
-async function sendEvent(page: Page, button: string, fill?: (dialog: ReturnType<Page['getByRole']>) => Promise<void>) {
-  await page.getByRole('group', { name: 'Actions' }).getByRole('button', { name: button, exact: false }).click();
-  const dialog = page.getByRole('dialog');
-  await dialog.waitFor();
-  if (fill) await fill(dialog);
-  await dialog.getByRole('button', { name: button, exact: false }).last().click();
-  await dialog.waitFor({ state: 'hidden' });
-}
 
 describe('extent of condition and impact in the browser', () => {
   it('when a bar technique fails the center-effect check, then the quality manager finds its sister technique, raises a linked finding and decides every past inspection', async () => {

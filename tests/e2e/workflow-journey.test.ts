@@ -1,39 +1,21 @@
 // The audit → finding → corrective action journey clicked through in Chromium
 // by the demo people, each in their own browser context.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { inject } from 'vitest';
-import { DEMO_PASSWORD, launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { DEMO_PASSWORD, launchBrowser, screenshotPath } from '../helpers/browser';
+import { browserSessions, isoDay, sendEvent } from '../helpers/record-pages';
 
 let browser: Browser;
-const contexts: BrowserContext[] = [];
+const sessions = browserSessions(() => browser);
+const as = sessions.as;
 beforeAll(async () => {
   browser = await launchBrowser();
 });
 afterAll(async () => {
-  for (const context of contexts) await context.close().catch(() => undefined);
+  await sessions.closeAll();
   await browser?.close();
 });
-
-async function as(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  await signInAs(page, email);
-  await page.getByRole('heading', { level: 1 }).waitFor();
-  return page;
-}
-
-const isoDay = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
-
-async function sendEvent(page: Page, button: string, fill?: (dialog: ReturnType<Page['getByRole']>) => Promise<void>, confirm = button) {
-  await page.getByRole('group', { name: 'Actions' }).getByRole('button', { name: button, exact: false }).click();
-  const dialog = page.getByRole('dialog');
-  await dialog.waitFor();
-  if (fill) await fill(dialog);
-  await dialog.getByRole('button', { name: confirm, exact: false }).last().click();
-  await dialog.waitFor({ state: 'hidden' });
-}
 
 describe('the workflow journey in the browser', () => {
   it('when auditor, quality manager, Level 3 and accountable manager each do their step, then the finding closes with its signature shown', async () => {
