@@ -2,13 +2,13 @@
 // grouped by customer and part number, with the quality manager's containment
 // decision for each (re-inspect, recall report, accept with justification,
 // not affected). A major finding cannot leave containment while any is undecided.
-import { subject } from '@casl/ability';
 import { Op } from 'sequelize';
 import type { AppDeps } from '../app-deps';
 import type { AppAbility } from '../../shared/abilities';
 import type { ContainmentDecisionsInput, FindingImpactView, ImpactGroup, ImpactRow } from '../../shared/schemas/impact';
 import { ContainmentDecision, Finding, Inspection, User } from '../models';
-import { AppError, forbidden, notAllowedNow, notFound, staleVersion } from '../lib/app-error';
+import { AppError, notAllowedNow, notFound, staleVersion } from '../lib/app-error';
+import { assertFindingAbility } from './finding-ability';
 import { inspectionIncludes, presentInspection } from '../presenters/inspection.presenter';
 import { appendTrail } from './trail.service';
 import { impactScopeOf, scopeWhere, type ImpactScope } from './impact-scope';
@@ -16,11 +16,8 @@ import { SETTLED_FINDING_STATES } from './workflow/record-kinds';
 import { retryOnDeadlock } from './workflow/retry';
 import type { EventActor } from './record-events.service';
 
-function checkMay(ability: AppAbility, finding: Finding) {
-  const plain = finding.get({ plain: true }) as Record<string, unknown>;
-  delete plain.snapshot;
-  if (!ability.can('decide_impact', subject('Finding', plain))) throw forbidden('Only a quality manager decides the impact of a finding');
-}
+const mayDecide = (ability: AppAbility, finding: Finding) =>
+  assertFindingAbility(ability, 'decide_impact', finding, 'Only a quality manager decides the impact of a finding');
 
 function refuseIfSettled(finding: Finding) {
   if ((SETTLED_FINDING_STATES as readonly string[]).includes(finding.state)) {
@@ -108,7 +105,7 @@ export async function setImpactScope(
   await deps.sequelize.transaction(async (transaction) => {
     const finding = await Finding.findByPk(findingId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!finding) throw notFound('Finding');
-    checkMay(ability, finding);
+    mayDecide(ability, finding);
     refuseIfSettled(finding);
     if (finding.version !== input.version) throw staleVersion();
     const previous = finding.impactSince ?? null;
@@ -141,7 +138,7 @@ export async function recordContainmentDecisions(
       // The finding's row lock orders these decisions against RECORD_CONTAINMENT, which counts them.
       const finding = await Finding.findByPk(findingId, { transaction, lock: transaction.LOCK.UPDATE });
       if (!finding) throw notFound('Finding');
-      checkMay(ability, finding);
+      mayDecide(ability, finding);
       refuseIfSettled(finding);
       const scope = await impactScopeOf(finding, now, transaction);
       const inScope = scope.revisions.length
