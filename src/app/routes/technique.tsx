@@ -60,6 +60,12 @@ export function Component() {
             approved by {revision.approvedBy.name} on {new Date(revision.approvedAt!).toLocaleString()}
           </span>
         )}
+        <span>
+          ·{' '}
+          <Link className="text-lagoon underline" to={`/registers/inspections?techniqueId=${view.id}`}>
+            Inspections made to this technique
+          </Link>
+        </span>
       </p>
       {newRevision.error ? <ErrorNotice error={newRevision.error} title="No new revision was started" /> : null}
       <div className="rounded-lg border-2 border-copper/60 bg-copper-soft/40 p-3">
