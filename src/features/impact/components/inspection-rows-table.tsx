@@ -110,6 +110,9 @@ export function InspectionRowsTable({
     return [...(selectable ? [select] : []), ...baseColumns, ...(withDecisions ? [decisionColumn] : [])];
   }, [selectable, withDecisions]);
 
+  // A filter may leave fewer pages than the one shown: stay on the last that exists.
+  const pages = Math.max(1, Math.ceil(rows.length / PAGE_SIZE));
+  const page = Math.min(pageIndex, pages - 1);
   const table = useReactTable({
     data: rows,
     columns,
@@ -117,13 +120,11 @@ export function InspectionRowsTable({
     getPaginationRowModel: getPaginationRowModel(),
     getRowId: (row) => String(row.inspection.id),
     enableRowSelection: selectable,
-    state: { rowSelection: selection ?? {}, pagination: { pageIndex, pageSize: PAGE_SIZE } },
+    state: { rowSelection: selection ?? {}, pagination: { pageIndex: page, pageSize: PAGE_SIZE } },
     onRowSelectionChange: (updater) => onSelectionChange?.(typeof updater === 'function' ? updater(selection ?? {}) : updater),
-    onPaginationChange: (updater) => setPageIndex((typeof updater === 'function' ? updater({ pageIndex, pageSize: PAGE_SIZE }) : updater).pageIndex),
+    onPaginationChange: (updater) => setPageIndex((typeof updater === 'function' ? updater({ pageIndex: page, pageSize: PAGE_SIZE }) : updater).pageIndex),
     autoResetPageIndex: false,
   });
-  const pages = Math.max(1, table.getPageCount());
-  const page = Math.min(pageIndex, pages - 1);
 
   return (
     <div className="overflow-hidden rounded-md border border-ink/10">
