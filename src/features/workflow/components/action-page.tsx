@@ -44,7 +44,7 @@ export function ActionPage({ id, evidence }: { id: number; evidence?: (action: A
       {a.state === 'in_progress' && a.evidenceCount === 0 && (
         <p className="rounded-md border border-warn/40 bg-warn/10 px-3 py-2 text-sm">Attach at least one evidence file before submitting.</p>
       )}
-      <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-4">
           <Panel title="Corrective action">
             <Facts items={rows} />

@@ -45,7 +45,7 @@ export function AuditPage({ id, evidence }: { id: number; evidence?: (audit: Aud
       )}
         <RecordExportLinks kind="audit" id={a.id} />
       </div>
-      <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-4">
           <Panel title="Audit">
             <Facts

@@ -44,7 +44,7 @@ export function FindingPage({
         {f.canAssignAction && <Button onClick={() => setAssigning(true)}>Assign corrective action</Button>}
         <RecordExportLinks kind="finding" id={f.id} />
       </div>
-      <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-4">
           <Panel title="Nonconformity">
             <Facts

@@ -38,7 +38,7 @@ export function RecordTimeline({ type, id }: { type: 'audit' | 'finding' | 'acti
           </p>
           <ul className="mt-0.5 text-xs text-ink-soft">
             {describeChanges(entry.changes).map((line) => (
-              <li key={line} className="break-words">
+              <li key={line} className="break-words [overflow-wrap:anywhere]">
                 {line}
               </li>
             ))}
