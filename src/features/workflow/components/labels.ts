@@ -45,6 +45,10 @@ export const EVENT_LABELS: Record<string, string> = {
   // Trail-only events
   AUDIT_PLANNED: 'Audit planned',
   FINDING_RAISED: 'Finding raised',
+  EXTENT_RUN: 'Extent of condition run',
+  EXTENT_FINDINGS_RAISED: 'Linked findings raised',
+  IMPACT_SCOPE_SET: 'Impact worksheet start date set',
+  CONTAINMENT_DECIDED: 'Containment decision recorded',
   ACTION_ASSIGNED: 'Corrective action assigned',
   ACTION_VERIFIED: 'Corrective action verified (sent by the server)',
   REOPEN: 'Reopened after a failed effectiveness check',
