@@ -121,11 +121,6 @@ async function main() {
   let baseline: ChildProcess | undefined;
   try {
     const seed = await seedBenchDatabase(database.instance.url);
-    if (process.env.BENCH_EXTRA_INDEXES === '1') {
-      // The indexes proposed in RESULTS.md for the findings list (state filter + number sort), to measure their effect.
-      database.instance.rootSql('USE whorl_bench; CREATE INDEX bench_findings_state_number ON findings (state, number); CREATE INDEX bench_findings_number ON findings (number)');
-      console.log('extra indexes: findings (state, number), findings (number)');
-    }
     const profileDir = path.join(ROOT, 'tests/output/bench-profile');
     const app = await startAppProcess({
       databaseUrl: database.instance.url,
@@ -308,7 +303,6 @@ function writeResults({
     '',
     `Produced by \`npm run bench\` (tests/bench/run.ts) on ${new Date().toISOString()}; each load ${SECONDS} s after a 2 s warm-up, ${CONNECTIONS} connections, autocannon on loopback.`,
     '',
-    process.env.BENCH_EXTRA_INDEXES === '1' ? '**With the proposed extra indexes findings (state, number) and findings (number).**\n' : '',
     `Machine: ${info.nproc} cores (${info.cpu}); memory ${info.memory}; Node ${info.node}; MariaDB ${info.mariadb}; load average at the start ${info.load}${Number(info.load.split(' ')[0]) > Number(info.nproc) ? ' (other work was running on the machine)' : ''}.`,
     '',
     `Seeded in **${seed.seconds.toFixed(1)} s**: ${Object.entries(seed.counts).map(([k, v]) => `${v.toLocaleString('en')} ${k}`).join(', ')}${seed.skipped.length ? `; not seeded (table missing): ${seed.skipped.join(', ')}` : ''}.`,
