@@ -4,7 +4,7 @@
 // is affected when it fails the finding's checklist rule today or is the
 // revision the finding was raised on; a finding that names no rule puts every
 // approved revision of its technique in doubt.
-import { Op, literal, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, QueryTypes, literal, type Transaction, type WhereOptions } from 'sequelize';
 import type { ImpactRevision } from '../../shared/schemas/impact';
 import { Finding, Inspection, TechniqueRevision } from '../models';
 import { loadOrganisationPolicy } from './policy.service';
@@ -77,17 +77,27 @@ export async function countUndecided(findingId: number, scope: ImpactScope, tran
 /**
  * The containment facts of findings: undecided inspections, counted only where
  * they matter (a finding in containment). Takes loaded rows, or ids to load.
- * A finding whose technique has no undecided inspection at all needs no engine run.
+ * One grouped query finds the findings whose technique has any inspection they
+ * have not decided; only those need their scope worked out (and the engine run).
  */
 export async function undecidedCounts(findings: Finding[] | number[], now: Date, transaction?: Transaction): Promise<Map<number, number>> {
   const rows = typeof findings[0] === 'number'
     ? await Finding.findAll({ where: { id: { [Op.in]: findings as number[] }, state: 'containment' }, transaction })
     : (findings as Finding[]);
   const counts = new Map<number, number>(rows.map((finding) => [finding.id, 0]));
-  for (const finding of rows) {
-    if (finding.state !== 'containment' || finding.techniqueId === null) continue;
-    const anyUndecided = await Inspection.count({ where: { techniqueId: finding.techniqueId, ...notDecidedBy(finding.id) }, transaction });
-    if (anyUndecided === 0) continue;
+  const candidates = rows.filter((finding) => finding.state === 'containment' && finding.techniqueId !== null);
+  if (!candidates.length) return counts;
+  const open = await Finding.sequelize!.query<{ id: number }>(
+    `SELECT f.id FROM findings f
+       JOIN inspections i ON i.technique_id = f.technique_id
+       LEFT JOIN containment_decisions d ON d.finding_id = f.id AND d.inspection_id = i.id
+      WHERE f.id IN (:ids) AND d.id IS NULL
+      GROUP BY f.id`,
+    { replacements: { ids: candidates.map((finding) => finding.id) }, type: QueryTypes.SELECT, transaction },
+  );
+  const withUndecided = new Set(open.map((row) => Number(row.id)));
+  for (const finding of candidates) {
+    if (!withUndecided.has(finding.id)) continue;
     counts.set(finding.id, await countUndecided(finding.id, await impactScopeOf(finding, now, transaction), transaction));
   }
   return counts;

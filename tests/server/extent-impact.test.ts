@@ -290,6 +290,8 @@ describe('impact on past inspections', () => {
     const detail = (await cast.quality.agent.get(`/api/findings/${finding.id}`)).body;
     expect(detail.state).toBe('containment');
     expect(detail.allowedEvents).not.toContain('RECORD_CONTAINMENT');
+    const listed = (await cast.quality.agent.get('/api/findings').query({ state: 'containment', pageSize: 200 })).body.items.find((item: { id: number }) => item.id === finding.id);
+    expect(listed.allowedEvents).not.toContain('RECORD_CONTAINMENT');
     const refused = await send(cast.quality, 'findings', finding.id, { type: 'RECORD_CONTAINMENT', description: 'Bundles quarantined' });
     expect(refused.status).toBe(422);
     expect(refused.body.error.message).toMatch(/^3 past inspection\(s\) .* no containment decision/);
@@ -327,6 +329,8 @@ describe('impact on past inspections', () => {
 
     const allowed = (await cast.quality.agent.get(`/api/findings/${finding.id}`)).body.allowedEvents;
     expect(allowed).toContain('RECORD_CONTAINMENT');
+    const listedAfter = (await cast.quality.agent.get('/api/findings').query({ state: 'containment', pageSize: 200 })).body.items.find((item: { id: number }) => item.id === finding.id);
+    expect(listedAfter.allowedEvents).toContain('RECORD_CONTAINMENT');
     const contained = await expectOk(await send(cast.quality, 'findings', finding.id, { type: 'RECORD_CONTAINMENT', description: 'Bundles quarantined; reports recalled' }));
     expect(contained.state).toBe('action_open');
   });
