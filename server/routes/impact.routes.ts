@@ -14,7 +14,8 @@ import {
   type ImpactRow,
 } from '../../shared/schemas/impact';
 import { INSPECTION_RESULT_LABELS } from '../../shared/schemas/inspection';
-import { getFindingFamily, raiseExtentFindings, runExtent } from '../services/extent.service';
+import { getFindingFamily, runExtent } from '../services/extent.service';
+import { raiseExtentFindings } from '../services/extent-findings.service';
 import { getFindingImpact, recordContainmentDecisions, setImpactScope } from '../services/finding-impact.service';
 import { getEquipmentImpact } from '../services/equipment-impact.service';
 import { Finding } from '../models';
