@@ -1,4 +1,3 @@
-import { z } from 'zod';
 import { ListQueryBaseSchema } from './common';
 
 export const MailboxListQuerySchema = ListQueryBaseSchema.extend({}).strict();
