@@ -1,21 +1,10 @@
 // From one failed check to the similar techniques and the affected past
 // inspections, clicked through in Chromium by the demo auditor and quality manager.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { inject } from 'vitest';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { describe, expect, inject, it } from 'vitest';
+import { screenshotPath } from '../helpers/browser';
 import { browserSessions, isoDay, sendEvent } from '../helpers/record-pages';
 
-let browser: Browser;
-const sessions = browserSessions(() => browser);
-const as = sessions.as;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await sessions.closeAll();
-  await browser?.close();
-});
+const { as } = browserSessions();
 
 describe('extent of condition and impact in the browser', () => {
   it('when a bar technique fails the center-effect check, then the quality manager finds its sister technique, raises a linked finding and decides every past inspection', async () => {

@@ -1,21 +1,10 @@
 // The audit → finding → corrective action journey clicked through in Chromium
 // by the demo people, each in their own browser context.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { inject } from 'vitest';
-import { DEMO_PASSWORD, launchBrowser, screenshotPath } from '../helpers/browser';
+import { describe, expect, inject, it } from 'vitest';
+import { DEMO_PASSWORD, screenshotPath } from '../helpers/browser';
 import { browserSessions, isoDay, sendEvent } from '../helpers/record-pages';
 
-let browser: Browser;
-const sessions = browserSessions(() => browser);
-const as = sessions.as;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await sessions.closeAll();
-  await browser?.close();
-});
+const { as } = browserSessions();
 
 describe('the workflow journey in the browser', () => {
   it('when auditor, quality manager, Level 3 and accountable manager each do their step, then the finding closes with its signature shown', async () => {
