@@ -3,8 +3,7 @@ import { PageHeader, ErrorNotice, Loading } from '../../components/ui/states';
 import { Button } from '../../components/ui/button';
 import { useDashboard, useDashboardAreas, type DashboardFilters } from '../../features/dashboard/api/dashboard';
 import { DashboardCharts, OPEN_FINDING_STATES } from '../../features/dashboard/components/dashboard-charts';
-
-const fieldClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
+import { FilterDate, FilterSelect } from '../../components/ui/list-filter';
 
 export function Component() {
   const [params, setParams] = useSearchParams();
@@ -31,25 +30,15 @@ export function Component() {
     <div>
       <PageHeader title="Dashboard" />
       <form className="mb-4 flex flex-wrap items-end gap-3" onSubmit={(event) => event.preventDefault()} aria-label="Dashboard filters">
-        <label className="flex flex-col gap-1 text-sm font-bold">
-          From
-          <input type="date" className={fieldClass} value={filters.from ?? data?.range.from ?? ''} onChange={(e) => set('from', e.target.value)} />
-        </label>
-        <label className="flex flex-col gap-1 text-sm font-bold">
-          To
-          <input type="date" className={fieldClass} value={filters.to ?? data?.range.to ?? ''} onChange={(e) => set('to', e.target.value)} />
-        </label>
-        <label className="flex flex-col gap-1 text-sm font-bold">
-          Area
-          <select className={fieldClass} value={filters.areaId ?? ''} onChange={(e) => set('areaId', e.target.value)}>
-            <option value="">All areas</option>
-            {areas.data?.items.map((area) => (
-              <option key={area.id} value={area.id}>
-                {area.name}
-              </option>
-            ))}
-          </select>
-        </label>
+        <FilterDate label="From" value={filters.from ?? data?.range.from} onChange={(value) => set('from', value)} />
+        <FilterDate label="To" value={filters.to ?? data?.range.to} onChange={(value) => set('to', value)} />
+        <FilterSelect
+          label="Area"
+          anyLabel="All areas"
+          value={filters.areaId}
+          options={(areas.data?.items ?? []).map((area) => ({ value: area.id, label: area.name }))}
+          onChange={(value) => set('areaId', value)}
+        />
         {(filters.from || filters.to || filters.areaId) && (
           <Button variant="secondary" onClick={() => setParams(new URLSearchParams(), { replace: true })}>
             Reset filters

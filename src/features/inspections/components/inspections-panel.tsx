@@ -7,6 +7,7 @@ import { DataTable } from '../../../components/ui/data-table';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { CsvExportLink } from '../../../components/ui/export-links';
+import { FilterDate, FilterSearch, FilterSelect } from '../../../components/ui/list-filter';
 import { ErrorNotice, Loading } from '../../../components/ui/states';
 import { useListParams } from '../../../hooks/use-list-params';
 import { useAbility } from '../../../lib/ability';
@@ -15,7 +16,6 @@ import { InspectionForm } from './inspection-form';
 import { ImportDialog } from './import-dialog';
 
 const column = createColumnHelper<InspectionView>();
-const filterClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
 const RESULT_CLASS: Record<InspectionResult, string> = {
   accept: 'bg-green-50 text-pass border-pass/30',
   reject: 'bg-red-50 text-fail border-fail/30',
@@ -124,68 +124,35 @@ export function InspectionsPanel() {
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div className="flex flex-wrap items-end gap-2">
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Search
-            <input
-              type="search"
-              className={`${filterClass} w-56`}
-              placeholder="Part, serial, work order, customer"
-              defaultValue={list.q}
-              onChange={(e) => list.update({ q: e.target.value })}
-            />
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Technique
-            <select className={`${filterClass} max-w-64`} value={list.filters.techniqueId ?? ''} onChange={(e) => list.update({ techniqueId: e.target.value, revisionId: null })}>
-              <option value="">Any</option>
-              {techniques.map(([id, label]) => (
-                <option key={id} value={id}>
-                  {label}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Revision
-            <select className={filterClass} value={list.filters.revisionId ?? ''} onChange={(e) => list.update({ revisionId: e.target.value })}>
-              <option value="">Any</option>
-              {revisions.map((r) => (
-                <option key={r.id} value={r.id}>
-                  {r.techniqueCode} rev {r.revision}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Equipment
-            <select className={`${filterClass} max-w-56`} value={list.filters.equipmentId ?? ''} onChange={(e) => list.update({ equipmentId: e.target.value })}>
-              <option value="">Any</option>
-              {(options.data?.equipment ?? []).map((item) => (
-                <option key={item.id} value={item.id}>
-                  {item.serialNumber} — {item.description}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Result
-            <select className={filterClass} value={list.filters.result ?? ''} onChange={(e) => list.update({ result: e.target.value })}>
-              <option value="">Any</option>
-              {INSPECTION_RESULTS.map((result) => (
-                <option key={result} value={result}>
-                  {INSPECTION_RESULT_LABELS[result]}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            From
-            <input type="date" className={filterClass} value={list.filters.from ?? ''} onChange={(e) => list.update({ from: e.target.value })} />
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            To
-            <input type="date" className={filterClass} value={list.filters.to ?? ''} onChange={(e) => list.update({ to: e.target.value })} />
-          </label>
+          <FilterSearch placeholder="Part, serial, work order, customer" defaultValue={list.q} onChange={(q) => list.update({ q })} />
+          <FilterSelect
+            label="Technique"
+            className="max-w-64"
+            value={list.filters.techniqueId}
+            options={techniques.map(([id, label]) => ({ value: id, label }))}
+            onChange={(techniqueId) => list.update({ techniqueId, revisionId: null })}
+          />
+          <FilterSelect
+            label="Revision"
+            value={list.filters.revisionId}
+            options={revisions.map((r) => ({ value: r.id, label: `${r.techniqueCode} rev ${r.revision}` }))}
+            onChange={(revisionId) => list.update({ revisionId })}
+          />
+          <FilterSelect
+            label="Equipment"
+            className="max-w-56"
+            value={list.filters.equipmentId}
+            options={(options.data?.equipment ?? []).map((item) => ({ value: item.id, label: `${item.serialNumber} — ${item.description}` }))}
+            onChange={(equipmentId) => list.update({ equipmentId })}
+          />
+          <FilterSelect
+            label="Result"
+            value={list.filters.result}
+            options={INSPECTION_RESULTS.map((result) => ({ value: result, label: INSPECTION_RESULT_LABELS[result] }))}
+            onChange={(result) => list.update({ result })}
+          />
+          <FilterDate label="From" value={list.filters.from} onChange={(from) => list.update({ from })} />
+          <FilterDate label="To" value={list.filters.to} onChange={(to) => list.update({ to })} />
         </div>
         <div className="flex flex-wrap gap-2">
           <CsvExportLink path="/inspections.csv" query={list.query} />

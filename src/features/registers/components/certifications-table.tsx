@@ -10,10 +10,16 @@ import { useCertifications, useCreateCertification, useUpdateCertification } fro
 import { CertificationForm, toCertificationInput, type CertificationFormValues } from './certification-form';
 import { CertificateBadge, VisionBadge } from './flag-badge';
 import { CsvExportLink, RecordExportLinks } from '../../../components/ui/export-links';
+import { FilterSearch, FilterSelect } from '../../../components/ui/list-filter';
 
 const column = createColumnHelper<CertificationView>();
 
-const filterClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
+const FLAG_FILTERS = [
+  { value: 'attention', label: 'Needs attention' },
+  { value: 'expired', label: 'Expired' },
+  { value: 'expiring', label: 'Expiring within 60 days' },
+  { value: 'vision-overdue', label: 'Near-vision exam overdue' },
+];
 
 export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certification: CertificationView) => React.ReactNode }) {
   const list = useListParams({ sort: 'expiresOn' });
@@ -81,38 +87,20 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div className="flex flex-wrap items-end gap-2">
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Search
-            <input type="search" className={`${filterClass} w-56`} placeholder="Name, certificate, sector" defaultValue={list.q} onChange={(e) => list.update({ q: e.target.value })} />
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Flag
-            <select className={filterClass} value={list.filters.flag ?? ''} onChange={(e) => list.update({ flag: e.target.value })}>
-              <option value="">All certificates</option>
-              <option value="attention">Needs attention</option>
-              <option value="expired">Expired</option>
-              <option value="expiring">Expiring within 60 days</option>
-              <option value="vision-overdue">Near-vision exam overdue</option>
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Method
-            <select className={filterClass} value={list.filters.method ?? ''} onChange={(e) => list.update({ method: e.target.value })}>
-              <option value="">Any</option>
-              {NDT_METHODS.map((method) => (
-                <option key={method}>{method}</option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Scheme
-            <select className={filterClass} value={list.filters.scheme ?? ''} onChange={(e) => list.update({ scheme: e.target.value })}>
-              <option value="">Any</option>
-              {CERTIFICATION_SCHEMES.map((scheme) => (
-                <option key={scheme}>{scheme}</option>
-              ))}
-            </select>
-          </label>
+          <FilterSearch placeholder="Name, certificate, sector" defaultValue={list.q} onChange={(q) => list.update({ q })} />
+          <FilterSelect label="Flag" anyLabel="All certificates" value={list.filters.flag} options={FLAG_FILTERS} onChange={(flag) => list.update({ flag })} />
+          <FilterSelect
+            label="Method"
+            value={list.filters.method}
+            options={NDT_METHODS.map((method) => ({ value: method, label: method }))}
+            onChange={(method) => list.update({ method })}
+          />
+          <FilterSelect
+            label="Scheme"
+            value={list.filters.scheme}
+            options={CERTIFICATION_SCHEMES.map((scheme) => ({ value: scheme, label: scheme }))}
+            onChange={(scheme) => list.update({ scheme })}
+          />
         </div>
         <div className="flex gap-2">
           <CsvExportLink path="/certifications.csv" query={list.query} />

@@ -12,9 +12,14 @@ import { useCreateEquipment, useEquipment, useUpdateEquipment } from '../api/equ
 import { EquipmentForm, toEquipmentInput, type EquipmentFormValues } from './equipment-form';
 import { CalibrationBadge } from './flag-badge';
 import { CsvExportLink, RecordExportLinks } from '../../../components/ui/export-links';
+import { FilterSearch, FilterSelect } from '../../../components/ui/list-filter';
 
 const column = createColumnHelper<EquipmentView>();
-const filterClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
+const CALIBRATION_FILTERS = [
+  { value: 'overdue', label: 'Overdue' },
+  { value: 'due-soon', label: 'Due within 30 days' },
+  { value: 'none', label: 'No calibration record' },
+];
 
 const notchSummary = (item: EquipmentView) =>
   item.notches
@@ -100,41 +105,20 @@ export function EquipmentTable() {
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div className="flex flex-wrap items-end gap-2">
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Search
-            <input type="search" className={`${filterClass} w-56`} placeholder="Description, model, serial" defaultValue={list.q} onChange={(e) => list.update({ q: e.target.value })} />
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Kind
-            <select className={filterClass} value={list.filters.kind ?? ''} onChange={(e) => list.update({ kind: e.target.value })}>
-              <option value="">Any</option>
-              {EQUIPMENT_KIND_VALUES.map((kind) => (
-                <option key={kind} value={kind}>
-                  {EQUIPMENT_KIND_LABELS[kind]}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Status
-            <select className={filterClass} value={list.filters.status ?? ''} onChange={(e) => list.update({ status: e.target.value })}>
-              <option value="">Any</option>
-              {EQUIPMENT_STATUSES.map((status) => (
-                <option key={status} value={status}>
-                  {EQUIPMENT_STATUS_LABELS[status]}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-bold">
-            Calibration
-            <select className={filterClass} value={list.filters.calibration ?? ''} onChange={(e) => list.update({ calibration: e.target.value })}>
-              <option value="">Any</option>
-              <option value="overdue">Overdue</option>
-              <option value="due-soon">Due within 30 days</option>
-              <option value="none">No calibration record</option>
-            </select>
-          </label>
+          <FilterSearch placeholder="Description, model, serial" defaultValue={list.q} onChange={(q) => list.update({ q })} />
+          <FilterSelect
+            label="Kind"
+            value={list.filters.kind}
+            options={EQUIPMENT_KIND_VALUES.map((kind) => ({ value: kind, label: EQUIPMENT_KIND_LABELS[kind] }))}
+            onChange={(kind) => list.update({ kind })}
+          />
+          <FilterSelect
+            label="Status"
+            value={list.filters.status}
+            options={EQUIPMENT_STATUSES.map((status) => ({ value: status, label: EQUIPMENT_STATUS_LABELS[status] }))}
+            onChange={(status) => list.update({ status })}
+          />
+          <FilterSelect label="Calibration" value={list.filters.calibration} options={CALIBRATION_FILTERS} onChange={(calibration) => list.update({ calibration })} />
         </div>
         <div className="flex gap-2">
           <CsvExportLink path="/equipment.csv" query={list.query} />

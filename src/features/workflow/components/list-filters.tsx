@@ -1,9 +1,9 @@
 // The filters of a workflow list, kept in the address bar by useListParams.
 import { FINDING_CLASSES } from '../../../../machines';
+import { FilterSearch, FilterSelect } from '../../../components/ui/list-filter';
 import { useAreaOptions, usePeopleWithRole } from '../api/workflow';
 import { CLASS_LABELS, stateLabel } from './labels';
 
-const selectClass = 'rounded-md border border-ink/25 bg-white px-2 py-1.5 text-sm font-normal';
 
 interface ListParams {
   q: string;
@@ -38,56 +38,29 @@ export function ListFilters({
 
   return (
     <div className="mb-3 flex flex-wrap items-end gap-3" role="search">
-      <label className="flex flex-col gap-1 text-sm font-bold">
-        Search
-        <input type="search" className={`${selectClass} w-60`} placeholder={searchHint} defaultValue={list.q} onChange={(e) => list.update({ q: e.target.value })} />
-      </label>
-      <label className="flex flex-col gap-1 text-sm font-bold">
-        State
-        <select className={selectClass} value={list.filters.state ?? ''} onChange={(e) => list.update({ state: e.target.value })}>
-          <option value="">Any</option>
-          {states.map((state) => (
-            <option key={state} value={state}>
-              {stateLabel(state)}
-            </option>
-          ))}
-        </select>
-      </label>
+      <FilterSearch className="w-60" placeholder={searchHint} defaultValue={list.q} onChange={(q) => list.update({ q })} />
+      <FilterSelect label="State" value={list.filters.state} options={states.map((state) => ({ value: state, label: stateLabel(state) }))} onChange={(state) => list.update({ state })} />
       {showClass && (
-        <label className="flex flex-col gap-1 text-sm font-bold">
-          Class
-          <select className={selectClass} value={list.filters.class ?? ''} onChange={(e) => list.update({ class: e.target.value })}>
-            <option value="">Any</option>
-            {FINDING_CLASSES.map((value) => (
-              <option key={value} value={value}>
-                {CLASS_LABELS[value]}
-              </option>
-            ))}
-          </select>
-        </label>
+        <FilterSelect
+          label="Class"
+          value={list.filters.class}
+          options={FINDING_CLASSES.map((value) => ({ value, label: CLASS_LABELS[value] }))}
+          onChange={(value) => list.update({ class: value })}
+        />
       )}
-      <label className="flex flex-col gap-1 text-sm font-bold">
-        Area
-        <select className={selectClass} value={list.filters.areaId ?? ''} onChange={(e) => list.update({ areaId: e.target.value })}>
-          <option value="">Any</option>
-          {(areas.data?.items ?? []).map((area) => (
-            <option key={area.id} value={area.id}>
-              {area.name}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="flex flex-col gap-1 text-sm font-bold">
-        {ownerLabel}
-        <select className={selectClass} value={list.filters.owner ?? ''} onChange={(e) => list.update({ owner: e.target.value })}>
-          <option value="">Anyone</option>
-          {people.map((person) => (
-            <option key={person.id} value={person.id}>
-              {person.displayName}
-            </option>
-          ))}
-        </select>
-      </label>
+      <FilterSelect
+        label="Area"
+        value={list.filters.areaId}
+        options={(areas.data?.items ?? []).map((area) => ({ value: area.id, label: area.name }))}
+        onChange={(areaId) => list.update({ areaId })}
+      />
+      <FilterSelect
+        label={ownerLabel}
+        anyLabel="Anyone"
+        value={list.filters.owner}
+        options={people.map((person) => ({ value: person.id, label: person.displayName }))}
+        onChange={(owner) => list.update({ owner })}
+      />
       {showOverdue && (
         <label className="flex items-center gap-2 pb-1.5 text-sm font-bold">
           <input type="checkbox" checked={list.filters.overdue === 'true'} onChange={(e) => list.update({ overdue: e.target.checked ? 'true' : null })} />
