@@ -5,6 +5,7 @@
 //   fields, snapshot, version + 1 and a trail entry → the cross-record event
 //   (VERIFY → ACTION_VERIFIED to the finding; NOT_EFFECTIVE → REOPEN to the
 //   action) → effects.inTransaction. After commit: effects.afterCommit.
+// A transaction chosen as a deadlock victim is run again from the start.
 // A wrong signing password rolls everything back; the failure is then counted
 // toward the sign-in lockout and written to the trail in a transaction of its own.
 import type { Model, Transaction } from 'sequelize';
@@ -40,6 +41,7 @@ import {
 } from './workflow/record-kinds';
 import { assignFields, fieldsAfter } from './workflow/record-fields';
 import { refusalReason } from './workflow/refusal-reasons';
+import { retryOnDeadlock } from './workflow/retry';
 
 export interface EventActor {
   id: number;
@@ -194,7 +196,10 @@ export async function applyRecordEvent(
   const meaning = signedMeaning(kind, input.type);
   const batches: EffectBatch[] = [];
   try {
-    await sequelize.transaction(async (transaction) => {
+    // A deadlock victim was rolled back whole (outbox inserts of concurrent transitions can meet on the
+    // dedupe index's gap locks): run it again from the start, with nothing kept from the failed attempt.
+    await retryOnDeadlock(() => sequelize.transaction(async (transaction) => {
+      batches.length = 0;
       const row = await loadForUpdate(kind, id, transaction);
       if (!row) throw notFound(LABELS[kind]);
       const related = await relatedIdsFor(kind, row, transaction);
@@ -256,7 +261,7 @@ export async function applyRecordEvent(
         batches.push(await sendServerEvent(deps, transaction, 'action', action.id, { type: 'REOPEN', reason }, causedBy, now));
       }
       await runEffectsInTransaction(transaction, batches);
-    });
+    }));
   } catch (error) {
     if (error instanceof SigningPasswordRefused) {
       await registerFailure(sequelize, actor.id, deps.config.signIn.lockThreshold, 'signature');
