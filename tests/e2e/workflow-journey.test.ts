@@ -2,6 +2,7 @@
 // by the demo people, each in their own browser context.
 import { describe, expect, inject, it } from 'vitest';
 import { DEMO_PASSWORD, screenshotPath } from '../helpers/browser';
+import { listTotal, waitForListTotal } from '../helpers/lists';
 import { browserSessions, isoDay, sendEvent } from '../helpers/record-pages';
 
 const { as } = browserSessions();
@@ -123,26 +124,32 @@ describe('the workflow journey in the browser', () => {
     await quality.screenshot({ path: screenshotPath('home-waiting-on-quality-manager'), fullPage: true });
 
     // The findings list filters on the server; the filters live in the address bar.
+    const inReviewTotal = await listTotal(quality, 'findings', { state: 'in_review' });
+    const allTotal = await listTotal(quality, 'findings');
+    const overdueTotal = await listTotal(quality, 'findings', { overdue: 'true' });
+    expect(inReviewTotal).toBeGreaterThanOrEqual(2);
+    expect(overdueTotal).toBeGreaterThan(0);
+    expect(overdueTotal).toBeLessThan(allTotal);
+
     await quality.getByRole('link', { name: 'Findings', exact: true }).click();
+    const table = quality.getByRole('table', { name: 'Findings', exact: true });
     await quality.getByLabel('State').selectOption('in_review');
     await quality.waitForURL(/state=in_review/);
-    const table = quality.getByRole('table', { name: 'Findings' });
-    await table.getByText('In review').first().waitFor();
-    expect(await table.locator('tbody tr').count()).toBeGreaterThanOrEqual(2);
+    await waitForListTotal(quality, 'Findings', inReviewTotal);
+    const inReviewStates = await table.locator('tbody tr td:nth-child(4)').allTextContents();
+    expect(inReviewStates.length).toBe(Math.min(inReviewTotal, 25));
+    expect(inReviewStates.every((text) => text === 'In review')).toBe(true);
+
     await quality.getByLabel('State').selectOption('');
     await quality.waitForURL((url) => !url.search.includes('state='));
-    await expect.poll(() => table.locator('tbody tr').count()).toBeGreaterThan(2);
-    const all = await table.locator('tbody tr').count();
+    await waitForListTotal(quality, 'Findings', allTotal);
+
     await quality.getByLabel('Overdue only').click();
     await quality.waitForURL(/overdue=true/);
-    // The previous page stays on screen until the filtered one arrives: wait for the filtered rows themselves.
-    const overdueRows = table.locator('tbody tr');
-    await expect
-      .poll(async () => {
-        const texts = await overdueRows.allTextContents();
-        return texts.length > 0 && texts.length < all && texts.every((text) => text.includes('overdue'));
-      })
-      .toBe(true);
+    await waitForListTotal(quality, 'Findings', overdueTotal);
+    const overdueRows = await table.locator('tbody tr').allTextContents();
+    expect(overdueRows.length).toBeGreaterThan(0);
+    expect(overdueRows.every((text) => text.includes('overdue'))).toBe(true);
     await quality.screenshot({ path: screenshotPath('findings-overdue'), fullPage: true });
   });
 

@@ -15,6 +15,8 @@ export interface DataTableProps<T> {
   onSortChange(sort: string): void;
   onPageChange(page: number): void;
   isLoading?: boolean;
+  /** The rows on screen are the previous list's, kept while the new filter or page loads. */
+  isRefreshing?: boolean;
   error?: unknown;
   emptyTitle?: string;
   emptyHint?: string;
@@ -32,6 +34,7 @@ export function DataTable<T>({
   onSortChange,
   onPageChange,
   isLoading,
+  isRefreshing = false,
   error,
   emptyTitle = 'Nothing here yet',
   emptyHint,
@@ -54,8 +57,8 @@ export function DataTable<T>({
   if (error) return <ErrorNotice error={error} title="The list could not be loaded" />;
 
   return (
-    <div className="overflow-hidden rounded-lg border border-ink/10 bg-white">
-      <div className="overflow-x-auto">
+    <div className="overflow-hidden rounded-lg border border-ink/10 bg-white" aria-busy={isRefreshing}>
+      <div className={`overflow-x-auto transition-opacity ${isRefreshing ? 'opacity-50' : ''}`}>
         <table className="w-full text-left text-sm">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-lagoon-soft/60 text-xs uppercase tracking-wide text-ink-soft">
@@ -106,6 +109,7 @@ export function DataTable<T>({
       <div className="flex items-center justify-between border-t border-ink/10 px-3 py-2 text-xs text-ink-soft">
         <span>
           {total} {total === 1 ? 'record' : 'records'} · page {page} of {pages}
+          {isRefreshing && <span role="status"> · updating…</span>}
         </span>
         <div className="flex gap-1">
           <Button variant="secondary" disabled={page <= 1} onClick={() => onPageChange(page - 1)} aria-label="Previous page">

@@ -33,7 +33,7 @@ export function AuditsTable() {
       <ListFilters list={list} states={AUDIT_STATES} ownerRole="auditor" ownerLabel="Lead auditor" showOverdue={false} searchHint="Audit title" />
       <div className="mb-2 flex justify-end"><CsvExportLink path="/audits.csv" query={list.query} /></div>
       <DataTable caption="Audits" columns={columns} data={audits.data?.items} total={audits.data?.total ?? 0} page={list.page} pageSize={list.pageSize} sort={list.sort}
-        onSortChange={(sort) => list.update({ sort })} onPageChange={(page) => list.update({ page })} isLoading={audits.isLoading} error={audits.error}
+        onSortChange={(sort) => list.update({ sort })} onPageChange={(page) => list.update({ page })} isLoading={audits.isLoading} isRefreshing={audits.isPlaceholderData} error={audits.error}
         emptyTitle="No audits match" getRowId={(row) => String(row.id)} />
     </>
   );
@@ -60,7 +60,7 @@ export function FindingsTable() {
       <ListFilters list={list} states={FINDING_STATES} showClass ownerRole={['level3', 'technician']} ownerLabel="Action owner" searchHint="Number, title or requirement" />
       <div className="mb-2 flex justify-end"><CsvExportLink path="/findings.csv" query={list.query} /></div>
       <DataTable caption="Findings" columns={columns} data={findings.data?.items} total={findings.data?.total ?? 0} page={list.page} pageSize={list.pageSize} sort={list.sort}
-        onSortChange={(sort) => list.update({ sort })} onPageChange={(page) => list.update({ page })} isLoading={findings.isLoading} error={findings.error}
+        onSortChange={(sort) => list.update({ sort })} onPageChange={(page) => list.update({ page })} isLoading={findings.isLoading} isRefreshing={findings.isPlaceholderData} error={findings.error}
         emptyTitle="No findings match" getRowId={(row) => String(row.id)} />
     </>
   );
@@ -86,7 +86,7 @@ export function ActionsTable() {
       <ListFilters list={list} states={CORRECTIVE_ACTION_STATES} ownerRole={['level3', 'technician']} searchHint="Number, finding or root cause" />
       <div className="mb-2 flex justify-end"><CsvExportLink path="/actions.csv" query={list.query} /></div>
       <DataTable caption="Corrective actions" columns={columns} data={actions.data?.items} total={actions.data?.total ?? 0} page={list.page} pageSize={list.pageSize} sort={list.sort}
-        onSortChange={(sort) => list.update({ sort })} onPageChange={(page) => list.update({ page })} isLoading={actions.isLoading} error={actions.error}
+        onSortChange={(sort) => list.update({ sort })} onPageChange={(page) => list.update({ page })} isLoading={actions.isLoading} isRefreshing={actions.isPlaceholderData} error={actions.error}
         emptyTitle="No corrective actions match" getRowId={(row) => String(row.id)} />
     </>
   );
