@@ -290,12 +290,20 @@ async function duplicateErrors(candidates: { row: number; input: InspectionInput
     if (earlier !== undefined) errors.push({ row, field: '(row)', message: `the same inspection as row ${earlier} (revision, part, serial number, date and work order)` });
     else firstRow.set(key, row);
   }
+  const revisionIds = [...new Set(candidates.map((c) => c.input.techniqueRevisionId))];
+  if (transaction) {
+    // Two imports of the same file at once would each find the other's rows missing: the second
+    // waits here on the revisions' row locks until the first commits, then its locking read
+    // below sees the committed rows (a plain read would see the transaction's older snapshot).
+    await TechniqueRevision.findAll({ attributes: ['id'], where: { id: { [Op.in]: revisionIds } }, order: [['id', 'ASC']], lock: transaction.LOCK.UPDATE, transaction });
+  }
   const existing = await Inspection.findAll({
     attributes: ['id', 'techniqueRevisionId', 'partNumber', 'serialNumber', 'performedOn', 'workOrder'],
     where: {
-      techniqueRevisionId: { [Op.in]: [...new Set(candidates.map((c) => c.input.techniqueRevisionId))] },
+      techniqueRevisionId: { [Op.in]: revisionIds },
       serialNumber: { [Op.in]: [...new Set(candidates.map((c) => c.input.serialNumber))] },
     },
+    ...(transaction ? { lock: transaction.LOCK.SHARE } : {}),
     transaction,
   });
   const inRegister = new Set(existing.map(duplicateKey));

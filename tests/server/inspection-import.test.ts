@@ -117,6 +117,16 @@ describe('inspection CSV import', () => {
     expect(repeated.body.errors).toEqual([{ row: 3, field: '(row)', message: expect.stringContaining('same inspection as row 2') }]);
   });
 
+  it('when the same file is imported twice at the same moment, then one import writes it and the other is refused', async () => {
+    const workOrder = `WO-RACE-${fixture.tag}`;
+    const file = [HEADER, line({ workOrder, serial: 'R-1' }), line({ workOrder, serial: 'R-2' })].join('\n');
+    const answers = await Promise.all([commit(file), commit(file)]);
+    expect(answers.map((answer) => answer.status).sort()).toEqual([201, 400]);
+    const refused = answers.find((answer) => answer.status === 400)!;
+    expect(refused.body.error.details[0].message).toContain('already holds this inspection');
+    expect(await rowsFor(workOrder)).toHaveLength(2);
+  });
+
   it('when one row of a file is bad, then the preview and the import report that row and field and nothing is written', async () => {
     const workOrder = `WO-BAD-${fixture.tag}`;
     const file = [HEADER, line({ workOrder, serial: 'B-1' }), line({ workOrder, serial: 'B-2' }), line({ workOrder, serial: 'B-3', probe: fixture.standard.serialNumber }), line({ workOrder, serial: 'B-4' })].join('\n');
