@@ -4,7 +4,6 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
-import { Caution } from '../../../components/ui/caution';
 import { CsvExportLink } from '../../../components/ui/export-links';
 import { TextField } from '../../../components/ui/field';
 import { Panel } from '../../../components/ui/panel';
@@ -52,7 +51,6 @@ export function EquipmentImpactPage({ equipmentId }: { equipmentId: number }) {
             Decisions on these inspections are recorded on a finding: raise one against the technique (or the equipment) and decide each inspection on its
             impact worksheet.
           </p>
-          <Caution compact />
         </div>
       </Panel>
     </div>

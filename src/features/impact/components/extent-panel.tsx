@@ -111,7 +111,8 @@ function ExtentRunResult({ run, finding, mayRaise, onChange }: { run: ExtentRunV
   return (
     <div className="flex flex-col gap-3">
       <p className="text-xs text-ink-soft">
-        Run #{run.id} by {run.runBy.name} at {formatUtc(run.runAt)} · engine {run.engineVersion}, policy version {run.policyVersion} ·{' '}
+        Run #{run.id} by {run.runBy.name} at {formatUtc(run.runAt)} · engine {run.engineVersion}, policy version {run.policyVersion}
+        {run.policyVersion === 0 && ' (the defaults, never changed)'} ·{' '}
         {run.evaluatedCount} approved technique(s) evaluated for <strong className="text-ink">{run.rule}</strong>
       </p>
       <fieldset className="flex flex-wrap gap-4 text-sm">
@@ -171,7 +172,7 @@ function ExtentRunResult({ run, finding, mayRaise, onChange }: { run: ExtentRunV
                       </div>
                     ))}
                   </td>
-                  <td className="px-2 py-2 text-xs">
+                  <td className="whitespace-nowrap px-2 py-2 text-xs">
                     {technique.sameOrientation && <div>same orientation</div>}
                     {technique.sameCoilType && <div>same coil type</div>}
                   </td>
