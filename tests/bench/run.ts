@@ -19,6 +19,7 @@ import { startBenchDatabase } from './bench-database';
 import { BENCH_PASSWORD, seedBenchDatabase } from './seed';
 import { benchEngine } from './engine';
 import { measureBundles } from './bundle';
+import { benchExtentAndImport, type TimedCall } from './extent-impact';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
@@ -252,6 +253,11 @@ async function main() {
     }
     console.log(`trail verify: ${verifications.map((v) => `${Math.round(v.ms)} ms (${v.entries} entries, ok ${v.ok})`).join(', ')}`);
 
+    // Last of the HTTP work: it adds findings, runs and inspections the loads above should not see.
+    const auditorId = (await auditor.call('GET', '/api/session')).body as { user?: { id: number } };
+    const extentImpact = await benchExtentAndImport(seed, { auditor, quality, auditorId: auditorId.user!.id });
+    for (const call of extentImpact) console.log(`${call.name}: ${call.ms.map((ms) => Math.round(ms)).join(', ')} ms (${call.detail})`);
+
     await app.stop();
     baseline.kill('SIGTERM');
     baseline = undefined;
@@ -261,7 +267,7 @@ async function main() {
     const bundles = await measureBundles();
     console.log(`initial JS (gzip): sign-in ${(bundles.signIn.gzipBytes / 1024).toFixed(1)} kB, largest route ${bundles.largest.route} ${(bundles.largest.gzipBytes / 1024).toFixed(1)} kB`);
 
-    writeResults({ info, seed, results, verifications, engine, bundles, sequential, plan, loadAtEnd: os.loadavg().map((v) => v.toFixed(2)).join(' ') });
+    writeResults({ info, seed, results, verifications, engine, bundles, sequential, plan, extentImpact, loadAtEnd: os.loadavg().map((v) => v.toFixed(2)).join(' ') });
   } finally {
     baseline?.kill('SIGTERM');
     await stopAllAppProcesses();
@@ -278,9 +284,11 @@ function writeResults({
   bundles,
   sequential,
   plan,
+  extentImpact,
   loadAtEnd,
 }: {
   sequential: Record<string, number>;
+  extentImpact: TimedCall[];
   plan: string;
   loadAtEnd: string;
   info: ReturnType<typeof machine>;
@@ -328,6 +336,16 @@ function writeResults({
     ratio !== null ? `Whorl/baseline throughput on the list: **${ratio.toFixed(2)}×**.` : 'Whorl/baseline: findings list not available yet.',
     '',
     `Trail verification of ${verifyMedian?.entries.toLocaleString('en')} entries: ${verifications.map((v) => `${Math.round(v.ms)} ms`).join(', ')} (median ${Math.round(verifyMedian?.ms ?? 0)} ms), chain ok: ${verifications.every((v) => v.ok)}.`,
+    '',
+    '## Extent of condition, impact worksheet and CSV import (one request at a time)',
+    '',
+    ...(extentImpact.length
+      ? [
+          '| request | ms (each run) | what it did |',
+          '| --- | --- | --- |',
+          ...extentImpact.map((call) => `| ${call.name} | ${call.ms.map((ms) => Math.round(ms)).join(', ')} | ${call.detail} |`),
+        ]
+      : ['Not measured: the inspections table or a failing approved technique is not in the seed.']),
     '',
     '## Checklist engine (in-process, tinybench, parsed techniques)',
     '',

@@ -14,7 +14,9 @@ import { DEMO_TECHNIQUES } from '../../shared/domain/demo-techniques';
 import { evaluateParsedTechnique } from '../../shared/domain/checklist';
 import type { Role } from '../../shared/roles';
 
-export const VOLUME = { findings: 50_000, actions: 50_000, techniques: 2_000, trail: 300_000, evidence: 20_000, audits: 1_000 };
+export const VOLUME = { findings: 50_000, actions: 50_000, techniques: 2_000, trail: 300_000, evidence: 20_000, audits: 1_000, inspections: 100_000 };
+/** Inspections made to the one technique the extent and impact benchmark raises its finding against. */
+export const IMPACT_INSPECTIONS = 5_000;
 export const BENCH_PASSWORD = 'benchmark password 2026';
 const BATCH = 5_000;
 const YEAR = 2026;
@@ -27,6 +29,12 @@ export interface SeedResult {
   /** Corrective actions owned by the benchmark owner in in_progress, for the extension round trip. */
   ownerActionIds: number[];
   findingIds: number[];
+  /** An approved technique whose checklist fails a rule: the extent and impact benchmark raises its finding here. */
+  impactTechnique: { id: number; code: string } | null;
+  /** Another approved technique, with no inspections seeded: the CSV import goes to it. */
+  importTechnique: { id: number; code: string } | null;
+  /** Technicians' e-mail addresses, for the inspector column of an import. */
+  technicianEmails: string[];
 }
 
 const utc = (date: Date) => date.toISOString().replace('T', ' ').replace('Z', '');
@@ -115,6 +123,11 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
   counts.users = userCount;
 
   // Techniques: demo techniques varied by code, each with one revision whose verdict the engine computed.
+  // Approved a year ago, so that a year of inspections lies within each revision's time in force.
+  const approvedTs = utc(new Date(now.getTime() - 365 * 86_400_000));
+  const approvedTechniqueIds: number[] = [];
+  let impactTechnique: SeedResult['impactTechnique'] = null;
+  let importTechnique: SeedResult['importTechnique'] = null;
   if (has('techniques') && has('technique_revisions')) {
     const techniques: unknown[][] = [];
     const revisions: unknown[][] = [];
@@ -123,8 +136,14 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
       const content = { ...base, code: `BT-${String(i).padStart(5, '0')}`, revision: 'A' };
       const output = evaluateParsedTechnique(content);
       const failed = [...new Set(output.results.filter((result) => result.status === 'fail').map((result) => result.rule))];
+      const approved = i % 5 !== 0;
+      if (approved) {
+        approvedTechniqueIds.push(i);
+        if (!impactTechnique && failed.length) impactTechnique = { id: i, code: content.code };
+        else if (!importTechnique) importTechnique = { id: i, code: content.code };
+      }
       techniques.push([i, content.code, content.title ?? `Technique ${i}`, (i % 3) + 1, 3, ts, ts]);
-      revisions.push([i, i, 1, 'A', i % 5 === 0 ? 'draft' : 'approved', JSON.stringify(content), output.verdict, JSON.stringify(failed), 3, 3, i % 5 === 0 ? null : 2, i % 5 === 0 ? null : ts, null, 0, ts, ts]);
+      revisions.push([i, i, 1, 'A', approved ? 'approved' : 'draft', JSON.stringify(content), output.verdict, JSON.stringify(failed), 3, 3, approved ? 2 : null, approved ? approvedTs : null, null, 0, ts, ts]);
     }
     await insertBatched(conn, 'techniques', ['id', 'code', 'title', 'area_id', 'created_by_id', 'created_at', 'updated_at'], techniques);
     await insertBatched(
@@ -212,6 +231,31 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
     counts.corrective_actions = VOLUME.actions;
   }
 
+  // Inspections: a year of work spread over the approved techniques (revision id = technique id above),
+  // IMPACT_INSPECTIONS of them made to the technique the impact benchmark raises its finding against.
+  const technicianIds = people.flatMap((person, i) => (person.roles.includes('technician') ? [i + 1] : []));
+  if (has('inspections') && impactTechnique && importTechnique) {
+    const spread = approvedTechniqueIds.filter((id) => id !== impactTechnique!.id && id !== importTechnique!.id);
+    const customers = ['Bench Customer North', 'Bench Customer South', 'Bench Customer East', 'Bench Customer West', 'Bench Customer Harbour'];
+    const results = ['accept', 'accept', 'accept', 'accept', 'accept', 'accept', 'accept', 'accept', 'reject', 'indication_recorded'];
+    const rows: unknown[][] = [];
+    for (let k = 1; k <= VOLUME.inspections; k += 1) {
+      const techniqueId = k <= IMPACT_INSPECTIONS ? impactTechnique.id : spread[k % spread.length];
+      const performedOn = day(new Date(now.getTime() - ((k % 360) + 1) * 86_400_000));
+      rows.push([
+        k, techniqueId, techniqueId, performedOn, `PN-${String(k % 40).padStart(3, '0')}`, `SN-${k}`, `WO-${Math.floor(k / 8)}`, customers[k % customers.length],
+        technicianIds[k % technicianIds.length], results[k % results.length], null, null, null, null, 2, 0, ts, ts,
+      ]);
+    }
+    await insertBatched(
+      conn,
+      'inspections',
+      ['id', 'technique_revision_id', 'technique_id', 'performed_on', 'part_number', 'serial_number', 'work_order', 'customer', 'inspector_id', 'result', 'instrument_id', 'probe_id', 'reference_standard_id', 'notes', 'created_by_id', 'version', 'created_at', 'updated_at'],
+      rows,
+    );
+    counts.inspections = VOLUME.inspections;
+  }
+
   // Evidence rows on the actions (metadata only: the benchmark reads lists, not file bytes).
   if (has('evidence_files')) {
     const rows: unknown[][] = [];
@@ -261,7 +305,7 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
   }
 
   await conn.query('SET foreign_key_checks = 1, unique_checks = 1');
-  await conn.query('ANALYZE TABLE findings, corrective_actions, trail_entries').catch(() => undefined);
+  await conn.query('ANALYZE TABLE findings, corrective_actions, trail_entries, inspections').catch(() => undefined);
   await conn.end();
   const seconds = (performance.now() - started) / 1000;
   log(`seeded in ${seconds.toFixed(1)} s: ${Object.entries(counts).map(([k, v]) => `${k} ${v}`).join(', ')}${skipped.length ? `; tables not there yet: ${skipped.join(', ')}` : ''}`);
@@ -272,5 +316,8 @@ export async function seedBenchDatabase(url: string, log: (line: string) => void
     users: { admin: 'admin@bench.example', quality: 'quality@bench.example', owner: 'owner@bench.example', auditor: 'auditor@bench.example' },
     ownerActionIds,
     findingIds,
+    impactTechnique,
+    importTechnique,
+    technicianEmails: people.flatMap((person) => (person.roles.includes('technician') ? [person.email] : [])),
   };
 }

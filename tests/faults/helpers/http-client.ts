@@ -1,5 +1,6 @@
-// A small signed-in HTTP client for the fault tests: fetch with the session
-// cookie and the CSRF token, a per-request timeout, and the time each call took.
+// A small signed-in HTTP client for the fault tests and the bench: fetch with the
+// session cookie and the CSRF token (JSON bodies, or one file as multipart), a
+// per-request timeout, and the time each call took.
 export interface CallResult {
   status: number; // 0: no answer (timeout or connection refused)
   body: unknown;
@@ -31,17 +32,28 @@ export class ApiClient {
     this.csrfToken = (result.body as { csrfToken: string }).csrfToken;
   }
 
-  async call(method: string, path: string, body?: unknown, timeoutMs = 15_000): Promise<CallResult> {
+  call(method: string, path: string, body?: unknown, timeoutMs = 15_000): Promise<CallResult> {
+    return this.send(method, path, body === undefined ? undefined : JSON.stringify(body), body !== undefined ? { 'content-type': 'application/json' } : {}, timeoutMs);
+  }
+
+  /** A multipart POST of one file (fetch sets the multipart content type and boundary). */
+  upload(path: string, field: string, bytes: Buffer, fileName: string, mediaType: string, timeoutMs = 15_000): Promise<CallResult> {
+    const form = new FormData();
+    form.append(field, new Blob([new Uint8Array(bytes)], { type: mediaType }), fileName);
+    return this.send('POST', path, form, {}, timeoutMs);
+  }
+
+  private async send(method: string, path: string, body: string | FormData | undefined, headers: Record<string, string>, timeoutMs: number): Promise<CallResult> {
     const started = performance.now();
     try {
       const response = await fetch(`${this.baseUrl}${path}`, {
         method,
         headers: {
-          ...(body !== undefined ? { 'content-type': 'application/json' } : {}),
+          ...headers,
           ...(this.cookie ? { cookie: this.cookie } : {}),
           ...(this.csrfToken && method !== 'GET' ? { 'x-csrf-token': this.csrfToken } : {}),
         },
-        body: body === undefined ? undefined : JSON.stringify(body),
+        body,
         signal: AbortSignal.timeout(timeoutMs),
       });
       const setCookie = response.headers.getSetCookie().find((value) => value.startsWith('whorl.sid='));
