@@ -254,8 +254,8 @@ async function main() {
     console.log(`trail verify: ${verifications.map((v) => `${Math.round(v.ms)} ms (${v.entries} entries, ok ${v.ok})`).join(', ')}`);
 
     // Last of the HTTP work: it adds findings, runs and inspections the loads above should not see.
-    const auditorId = (await auditor.call('GET', '/api/session')).body as { user?: { id: number } };
-    const extentImpact = await benchExtentAndImport(seed, { auditor, quality, auditorId: auditorId.user!.id });
+    const auditorSession = (await auditor.call('GET', '/api/session')).body as { user: { id: number } };
+    const extentImpact = await benchExtentAndImport(seed, { auditor, quality, auditorId: auditorSession.user.id });
     for (const call of extentImpact) console.log(`${call.name}: ${call.ms.map((ms) => Math.round(ms)).join(', ')} ms (${call.detail})`);
 
     await app.stop();
