@@ -2,10 +2,13 @@ import { z } from 'zod';
 
 export const IdParamSchema = z.object({ id: z.coerce.number().int().positive() }).strict();
 
+/** Rows a list page holds when the address names no page size (server and client alike). */
+export const DEFAULT_PAGE_SIZE = 25;
+
 /** The common list query: page, pageSize, sort ("field" or "-field" for descending) and q. */
 export const ListQueryBaseSchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+  pageSize: z.coerce.number().int().min(1).max(200).default(DEFAULT_PAGE_SIZE),
   sort: z
     .string()
     .regex(/^-?[a-zA-Z][a-zA-Z0-9]*$/, 'sort must be a field name, optionally prefixed with "-"')

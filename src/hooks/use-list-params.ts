@@ -1,5 +1,6 @@
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
+import { DEFAULT_PAGE_SIZE } from '../../shared/schemas/common';
 
 /**
  * A list's page, sort, text search and filters, kept in the address bar so a
@@ -8,7 +9,7 @@ import { useSearchParams } from 'react-router-dom';
 export function useListParams(defaults: { sort?: string; pageSize?: number } = {}) {
   const [params, setParams] = useSearchParams();
   const page = Math.max(1, Number(params.get('page') ?? 1) || 1);
-  const pageSize = Number(params.get('pageSize') ?? defaults.pageSize ?? 25) || 25;
+  const pageSize = Number(params.get('pageSize') ?? defaults.pageSize ?? DEFAULT_PAGE_SIZE) || DEFAULT_PAGE_SIZE;
   const sort = params.get('sort') ?? defaults.sort ?? '';
   const q = params.get('q') ?? '';
 

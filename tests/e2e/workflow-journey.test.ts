@@ -3,6 +3,7 @@
 import { describe, expect, inject, it } from 'vitest';
 import { DEMO_PASSWORD, screenshotPath } from '../helpers/browser';
 import { listTotal, waitForListTotal } from '../helpers/lists';
+import { DEFAULT_PAGE_SIZE } from '../../shared/schemas/common';
 import { browserSessions, isoDay, sendEvent } from '../helpers/record-pages';
 
 const { as } = browserSessions();
@@ -137,7 +138,7 @@ describe('the workflow journey in the browser', () => {
     await quality.waitForURL(/state=in_review/);
     await waitForListTotal(quality, 'Findings', inReviewTotal);
     const inReviewStates = await table.locator('tbody tr td:nth-child(4)').allTextContents();
-    expect(inReviewStates.length).toBe(Math.min(inReviewTotal, 25));
+    expect(inReviewStates.length).toBe(Math.min(inReviewTotal, DEFAULT_PAGE_SIZE));
     expect(inReviewStates.every((text) => text === 'In review')).toBe(true);
 
     await quality.getByLabel('State').selectOption('');

@@ -133,7 +133,8 @@ export function UsersTable() {
         sort={list.sort}
         onSortChange={(sort) => list.update({ sort })}
         onPageChange={(page) => list.update({ page }, { resetPage: false })}
-        isLoading={users.isLoading} isRefreshing={users.isPlaceholderData}
+        isLoading={users.isLoading}
+        isRefreshing={users.isPlaceholderData}
         error={users.error}
         emptyTitle="No one matches this search"
         getRowId={(row) => String(row.id)}

@@ -181,7 +181,8 @@ export function InspectionsPanel() {
         sort={list.sort}
         onSortChange={(sort) => list.update({ sort })}
         onPageChange={(page) => list.update({ page }, { resetPage: false })}
-        isLoading={inspections.isLoading} isRefreshing={inspections.isPlaceholderData}
+        isLoading={inspections.isLoading}
+        isRefreshing={inspections.isPlaceholderData}
         error={inspections.error}
         emptyTitle="No inspections match"
         emptyHint={canCreate ? 'Change the filters, record an inspection, or import a CSV file.' : 'Change the filters.'}

@@ -117,7 +117,8 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
         sort={list.sort}
         onSortChange={(sort) => list.update({ sort })}
         onPageChange={(page) => list.update({ page }, { resetPage: false })}
-        isLoading={certifications.isLoading} isRefreshing={certifications.isPlaceholderData}
+        isLoading={certifications.isLoading}
+        isRefreshing={certifications.isPlaceholderData}
         error={certifications.error}
         emptyTitle="No certificates match"
         emptyHint="Change the filters, or record a certificate."

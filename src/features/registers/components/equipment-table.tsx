@@ -135,7 +135,8 @@ export function EquipmentTable() {
         sort={list.sort}
         onSortChange={(sort) => list.update({ sort })}
         onPageChange={(page) => list.update({ page }, { resetPage: false })}
-        isLoading={equipment.isLoading} isRefreshing={equipment.isPlaceholderData}
+        isLoading={equipment.isLoading}
+        isRefreshing={equipment.isPlaceholderData}
         error={equipment.error}
         emptyTitle="No equipment matches"
         emptyHint="Change the filters, or register an instrument, probe or reference standard."

@@ -116,7 +116,8 @@ export function TechniquesTable() {
         sort={list.sort}
         onSortChange={(sort) => list.update({ sort })}
         onPageChange={(page) => list.update({ page }, { resetPage: false })}
-        isLoading={techniques.isLoading} isRefreshing={techniques.isPlaceholderData}
+        isLoading={techniques.isLoading}
+        isRefreshing={techniques.isPlaceholderData}
         error={techniques.error}
         emptyTitle={list.q || Object.keys(list.filters).length ? 'No technique matches these filters' : 'The register holds no techniques yet'}
         getRowId={(row) => String(row.id)}
