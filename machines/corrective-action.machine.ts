@@ -132,13 +132,14 @@ export const correctiveActionMachine = setup({
     input: {} as CorrectiveActionInput,
   },
   guards: {
-    planIsComplete: ({ event }) =>
+    // Every item falls due on or before the action itself: a plan cannot outrun its own deadline.
+    planIsComplete: ({ context, event }) =>
       event.type === 'SUBMIT_PLAN' &&
       ROOT_CAUSE_METHODS.includes(event.method) &&
       isNonBlank(event.rootCause) &&
       Array.isArray(event.plan) &&
       event.plan.length > 0 &&
-      event.plan.every((step) => isNonBlank(step?.description) && isIsoDate(step?.dueDate)),
+      event.plan.every((step) => isNonBlank(step?.description) && isIsoDate(step?.dueDate) && step.dueDate <= context.dueDate),
     hasReturnReason: ({ event }) => (event.type === 'RETURN_PLAN' || event.type === 'RETURN') && isNonBlank(event.reason),
     hasReopenReason: ({ event }) => event.type === 'REOPEN' && isNonBlank(event.reason),
     hasEvidence: ({ event }) =>

@@ -50,7 +50,7 @@ export function correctiveActionProbeEvents(
       type: 'SUBMIT_PLAN',
       method: 'other',
       rootCause: PLACEHOLDER,
-      plan: [{ description: PLACEHOLDER, dueDate: laterDate }],
+      plan: [{ description: PLACEHOLDER, dueDate: context.dueDate }],
     },
     { type: 'APPROVE_PLAN' },
     { type: 'RETURN_PLAN', reason: PLACEHOLDER },

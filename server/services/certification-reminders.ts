@@ -76,27 +76,56 @@ export async function certificationReminderCandidates(deps: AppDeps, now: Date =
         dedupeKey: `certification:${row.id}:expiry:${row.expiresOn}:${expiryThreshold}`,
       });
     }
-    const vision = visionFlag(row.nearVisionExamOn, now, policy.nearVisionExamMonths);
-    if (vision.status === 'overdue' || vision.status === 'due-soon' || vision.status === 'missing') {
-      const lapsed = vision.status !== 'due-soon';
-      reminders.push({
-        kind: 'vision-exam',
-        certificationId: row.id,
-        userId: row.userId,
-        personName: name,
-        recipientUserIds: recipients,
-        threshold: lapsed ? 0 : VISION_WARNING_DAYS,
-        dueOn: vision.dueOn ?? isoDay(now),
-        daysLeft: vision.daysLeft ?? 0,
-        subject: lapsed ? `${name}: near-vision exam overdue` : `${name}: near-vision exam due by ${vision.dueOn}`,
-        text: vision.status === 'missing'
-          ? `No near-vision exam is on record for ${name} (${label}). A person performing ET needs one within the last ${policy.nearVisionExamMonths} months.`
-          : lapsed
-            ? `The last near-vision exam of ${name} (${row.nearVisionExamOn}) is more than ${policy.nearVisionExamMonths} months old. Until a new exam is recorded, ${name} must not perform ET.`
-            : `The near-vision exam of ${name} (${row.nearVisionExamOn}) counts until ${vision.dueOn}, ${vision.daysLeft} days from now. Book the next exam.`,
-        dedupeKey: `certification:${row.id}:vision:${row.nearVisionExamOn ?? 'none'}:${lapsed ? 0 : VISION_WARNING_DAYS}`,
-      });
-    }
+  }
+  reminders.push(...(await visionReminders(rows, managerIds, now, policy.nearVisionExamMonths)));
+  return reminders;
+}
+
+/**
+ * A near-vision exam belongs to the person, not to a certificate: someone holding
+ * two certificates gets one reminder, judged on their latest exam on any of them.
+ */
+async function visionReminders(
+  candidates: Certification[],
+  managerIds: number[],
+  now: Date,
+  nearVisionExamMonths: number,
+): Promise<CertificationReminder[]> {
+  const userIds = [...new Set(candidates.map((row) => row.userId))];
+  if (!userIds.length) return [];
+  const held = await Certification.findAll({
+    where: { active: true, userId: { [Op.in]: userIds } },
+    attributes: ['id', 'userId', 'method', 'level', 'certificateNumber', 'nearVisionExamOn'],
+    order: [['id', 'ASC']],
+  });
+  const reminders: CertificationReminder[] = [];
+  for (const userId of userIds) {
+    const certificates = held.filter((row) => row.userId === userId);
+    if (!certificates.length) continue;
+    const examDates = certificates.map((row) => row.nearVisionExamOn).filter((day): day is string => day !== null);
+    const latestExamOn = examDates.length ? examDates.reduce((a, b) => (a > b ? a : b)) : null;
+    const vision = visionFlag(latestExamOn, now, nearVisionExamMonths);
+    if (vision.status !== 'overdue' && vision.status !== 'due-soon' && vision.status !== 'missing') continue;
+    const name = candidates.find((row) => row.userId === userId)?.person?.displayName ?? `person ${userId}`;
+    const labels = certificates.map((row) => `${row.method} Level ${row.level} certificate ${row.certificateNumber}`).join(', ');
+    const lapsed = vision.status !== 'due-soon';
+    reminders.push({
+      kind: 'vision-exam',
+      certificationId: certificates[0].id,
+      userId,
+      personName: name,
+      recipientUserIds: [...new Set([userId, ...managerIds])],
+      threshold: lapsed ? 0 : VISION_WARNING_DAYS,
+      dueOn: vision.dueOn ?? isoDay(now),
+      daysLeft: vision.daysLeft ?? 0,
+      subject: lapsed ? `${name}: near-vision exam overdue` : `${name}: near-vision exam due by ${vision.dueOn}`,
+      text: vision.status === 'missing'
+        ? `No near-vision exam is on record for ${name} (${labels}). A person performing ET needs one within the last ${nearVisionExamMonths} months.`
+        : lapsed
+          ? `The last near-vision exam of ${name} (${latestExamOn}) is more than ${nearVisionExamMonths} months old; it covers ${labels}. Until a new exam is recorded, ${name} must not perform ET.`
+          : `The near-vision exam of ${name} (${latestExamOn}) counts until ${vision.dueOn}, ${vision.daysLeft} days from now; it covers ${labels}. Book the next exam.`,
+      dedupeKey: `person:${userId}:vision:${latestExamOn ?? 'none'}:${lapsed ? 0 : VISION_WARNING_DAYS}`,
+    });
   }
   return reminders;
 }

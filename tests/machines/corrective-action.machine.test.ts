@@ -71,6 +71,11 @@ const invalidCases: Case[] = [
     name: 'SUBMIT_PLAN with a step on a date that does not exist',
     event: { ...completePlan, plan: [{ description: 'Revise', dueDate: '2026-02-30' }] } as Event,
   },
+  {
+    // The action is due on 2026-06-30 (baseContext): a plan item cannot fall due after the action itself.
+    name: 'SUBMIT_PLAN with a step due after the action',
+    event: { ...completePlan, plan: [{ description: 'Revise', dueDate: '2026-07-01' }] } as Event,
+  },
   { name: 'RETURN_PLAN with a blank reason', event: { type: 'RETURN_PLAN', reason: ' ' } },
   { name: 'RETURN_PLAN without a reason', event: { type: 'RETURN_PLAN' } as Event },
   { name: 'SUBMIT with no evidence', event: { type: 'SUBMIT', summary: 'Done', facts: { evidenceCount: 0 } } },

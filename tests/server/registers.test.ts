@@ -303,7 +303,7 @@ describe('certification reminders', () => {
     // 31 days out the 60-day key repeats (sent once); at 30 days a new key; vision due within 30 days from 2027-01-29.
     expect((await mine('2027-01-29')).map((c) => c.dedupeKey)).toEqual([
       `certification:${created.body.id}:expiry:2027-03-01:60`,
-      `certification:${created.body.id}:vision:2026-02-28:30`,
+      `person:${person.id}:vision:2026-02-28:30`,
     ]);
     expect((await mine('2027-01-30'))[0].dedupeKey).toBe(`certification:${created.body.id}:expiry:2027-03-01:30`);
     // After expiry and vision lapse: the lapse reminders (threshold 0).
@@ -313,5 +313,32 @@ describe('certification reminders', () => {
       ['vision-exam', 0],
     ]);
     expect(lapsed[0].text).toContain('must not perform or approve inspections');
+  });
+
+  it('when a person holds two certificates with one near-vision exam, then one vision reminder goes to them, judged on their latest exam', async () => {
+    const { certificationReminderCandidates } = await import('../../server/services/certification-reminders');
+    const quality = await signedInAs(context, ['quality_manager']);
+    const person = await makeUser({ roles: ['technician'], displayName: 'Two Certificates' });
+    const first = await quality.post('/api/certifications').send(
+      certificationBody(person.id, { issuedOn: '2022-03-01', expiresOn: '2029-03-01', nearVisionExamOn: '2026-02-28' }),
+    );
+    const second = await quality.post('/api/certifications').send(
+      certificationBody(person.id, { method: 'PT', issuedOn: '2022-03-01', expiresOn: '2029-03-01', nearVisionExamOn: '2026-02-28' }),
+    );
+    expect([first.status, second.status]).toEqual([201, 201]);
+    const visionFor = async (day: string) =>
+      (await certificationReminderCandidates(context.deps, new Date(`${day}T06:00:00Z`))).filter(
+        (c) => c.kind === 'vision-exam' && c.userId === person.id,
+      );
+    const overdue = await visionFor('2027-03-02');
+    expect(overdue).toHaveLength(1);
+    expect(overdue[0].dedupeKey).toBe(`person:${person.id}:vision:2026-02-28:0`);
+    expect(overdue[0].text).toContain(first.body.certificateNumber);
+    expect(overdue[0].text).toContain(second.body.certificateNumber);
+
+    // A newer exam recorded on either certificate counts for the person: no reminder.
+    const updated = await quality.patch(`/api/certifications/${second.body.id}`).send({ version: second.body.version, nearVisionExamOn: '2027-02-20' });
+    expect(updated.status).toBe(200);
+    expect(await visionFor('2027-03-02')).toEqual([]);
   });
 });

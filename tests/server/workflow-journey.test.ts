@@ -162,6 +162,25 @@ describe('the audit → finding → corrective action journey', () => {
     expect(stored!.machineVersion).toBe(1);
   });
 
+  it('when a plan item falls due after the corrective action itself, then the plan is refused with the item named and nothing changes', async () => {
+    const cast = await makeCast(context);
+    const { action } = await findingWithAction(cast); // due in 30 days
+    await expectOk(await send(cast.owner, 'actions', action.id, { type: 'START' }));
+    const late = await send(cast.owner, 'actions', action.id, {
+      type: 'SUBMIT_PLAN',
+      method: 'other',
+      rootCause: 'Procedure gap',
+      plan: [
+        { description: 'Revise', dueDate: inDays(10) },
+        { description: 'Brief the shift', dueDate: inDays(31) },
+      ],
+    });
+    expect(late.status).toBe(422);
+    expect(late.body.error.message).toBe(`Plan item 2 (${inDays(31)}) falls due after the corrective action itself (${inDays(30)}): bring it forward, or request an extension first`);
+    expect((await cast.owner.agent.get(`/api/actions/${action.id}`)).body).toMatchObject({ state: 'investigating', plan: [] });
+    await expectOk(await send(cast.owner, 'actions', action.id, { type: 'SUBMIT_PLAN', method: 'other', rootCause: 'Procedure gap', plan: [{ description: 'Brief the shift', dueDate: inDays(30) }] }));
+  });
+
   it('when an effectiveness check fails, then the finding goes back to action_open and the server reopens its action', async () => {
     const cast = await makeCast(context);
     const { finding, action } = await findingWithAction(cast);

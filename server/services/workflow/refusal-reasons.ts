@@ -36,8 +36,14 @@ export function refusalReason(
         : 'Describe the containment (what was done at once)';
     case 'finding:CONFIRM_EFFECTIVE':
       return 'A note saying how effectiveness was checked is required';
-    case 'action:SUBMIT_PLAN':
+    case 'action:SUBMIT_PLAN': {
+      const late = lateSteps(event.plan, context.dueDate);
+      if (late.length) {
+        const items = late.map(({ index, dueDate }) => `item ${index + 1} (${dueDate})`).join(', ');
+        return `Plan ${items} ${late.length === 1 ? 'falls' : 'fall'} due after the corrective action itself (${String(context.dueDate)}): bring ${late.length === 1 ? 'it' : 'them'} forward, or request an extension first`;
+      }
       return 'The plan needs a root-cause method, an analysis and at least one item with a due date';
+    }
     case 'action:SUBMIT':
       return facts.evidenceCount === 0
         ? 'Attach at least one evidence file before submitting the corrective action'
@@ -52,4 +58,12 @@ export function refusalReason(
     default:
       return `${event.type} is not allowed on this ${label} now`;
   }
+}
+
+/** Plan items due after the action's own due date (ISO dates compare as strings). */
+export function lateSteps(plan: unknown, actionDueDate: unknown): { index: number; dueDate: string }[] {
+  if (!Array.isArray(plan) || typeof actionDueDate !== 'string') return [];
+  return plan.flatMap((step: { dueDate?: unknown }, index) =>
+    typeof step?.dueDate === 'string' && step.dueDate > actionDueDate ? [{ index, dueDate: step.dueDate }] : [],
+  );
 }

@@ -15,8 +15,11 @@ export function EventActions({
   record,
 }: {
   kind: RecordKind;
-  /** `proposedClass`: a finding raised from an extent of condition starts its classification with it. */
-  record: { id: number; version: number; allowedEvents: string[]; proposedClass?: string | null };
+  /**
+   * `proposedClass`: a finding raised from an extent of condition starts its classification with it.
+   * `dueDate`: a corrective action's own due date, the latest day a plan item may fall due.
+   */
+  record: { id: number; version: number; allowedEvents: string[]; proposedClass?: string | null; dueDate?: string | null };
 }) {
   const [open, setOpen] = useState<string | null>(null);
   const mutation = useRecordEvent(PATHS[kind], record.id);
@@ -39,6 +42,7 @@ export function EventActions({
             kind={kind}
             type={open}
             proposedClass={record.proposedClass ?? null}
+            planDueBy={kind === 'action' ? (record.dueDate ?? null) : null}
             pending={mutation.isPending}
             error={mutation.error}
             onCancel={close}

@@ -36,6 +36,7 @@ export function EventForm({
   kind,
   type,
   proposedClass = null,
+  planDueBy = null,
   pending,
   error,
   onSubmit,
@@ -44,6 +45,8 @@ export function EventForm({
   kind: RecordKind;
   type: string;
   proposedClass?: string | null;
+  /** The latest day a plan item may fall due (the corrective action's own due date). */
+  planDueBy?: string | null;
   pending: boolean;
   error: unknown;
   onSubmit(payload: Payload): void;
@@ -152,6 +155,8 @@ export function EventForm({
                 label="Due"
                 type="date"
                 required
+                max={planDueBy ?? undefined}
+                hint={planDueBy ? `by ${planDueBy}` : undefined}
                 value={item.dueDate}
                 onChange={(e) => setPlan(plan.map((p, i) => (i === index ? { ...p, dueDate: e.target.value } : p)))}
               />
