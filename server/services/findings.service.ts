@@ -12,6 +12,7 @@ import type { FindingCreateInput, FindingDetailView, FindingListQuerySchema, Fin
 import type { RuleResult } from '../../shared/domain/checklist';
 import { appendTrail } from './trail.service';
 import { allocateRecordNumber } from './record-numbers.service';
+import { refuseDuplicateFinding } from './duplicate-findings';
 import { allowedEventsForUser, findingFacts } from './workflow/record-kinds';
 import { retryOnDeadlock } from './workflow/retry';
 import { presentFinding, presentFindingDetail } from '../presenters/finding.presenter';
@@ -77,7 +78,8 @@ export async function raiseFinding(
   const now = deps.clock.now();
   return retryOnDeadlock(() =>
     deps.sequelize.transaction(async (transaction) => {
-      const audit = await Audit.findByPk(auditId, { transaction, lock: transaction.LOCK.SHARE });
+      // Raises on one audit take turns, so the duplicate check below sees every finding committed before it.
+      const audit = await Audit.findByPk(auditId, { transaction, lock: transaction.LOCK.UPDATE });
       if (!audit) throw notFound('Audit');
       if (!ability.can('create', subject('Finding', { auditLeadAuditorId: audit.leadAuditorId, areaId: audit.areaId })) || audit.leadAuditorId !== actor.id) {
         throw forbidden('Only the audit’s lead auditor raises findings on it');
@@ -93,6 +95,10 @@ export async function raiseFinding(
         const result = run.output.results[input.resultIndex!];
         if (!result) throw new AppError('Some body fields are not valid', { status: 400, code: 'invalid_input', details: [{ path: 'resultIndex', message: `the run has ${run.output.results.length} results` }] });
         if (result.status !== 'fail' && result.status !== 'warn') throw notAllowedNow(`That result is "${result.status}": a finding is raised from a failed (or warned) result`);
+        await refuseDuplicateFinding(
+          { auditId, techniqueId: run.techniqueId, techniqueCode: run.techniqueCode, techniqueRevision: run.techniqueRevision, result },
+          transaction,
+        );
         prefill = prefillFromResult(result, run.techniqueCode, run.techniqueRevision);
         resultValues = result.values;
       }

@@ -84,6 +84,20 @@ export async function raiseFromRun(lead: SignedIn, auditId: number, runId: numbe
   return expectOk(await lead.post(`/api/audits/${auditId}/findings`).send({ checklistRunId: runId, resultIndex }), 201);
 }
 
+/** A finding written by hand (no checklist result behind it): any number of these may stand on one audit. */
+export function raiseByHandBody(subject: string) {
+  return {
+    title: `${subject} at the tube bench`,
+    rule: 'Company ET procedure §4.2',
+    requirement: 'Probe caps are fitted between inspections',
+    objectiveEvidence: `${subject}: probe left without its cap`,
+  };
+}
+
+export async function raiseByHand(lead: SignedIn, auditId: number, subject: string) {
+  return expectOk(await lead.post(`/api/audits/${auditId}/findings`).send(raiseByHandBody(subject)), 201);
+}
+
 /**
  * Stub evidence row: the metadata row an upload writes (current, stored), inserted
  * directly so SUBMIT has its evidenceCount fact without file storage. Uploading

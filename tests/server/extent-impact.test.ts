@@ -214,6 +214,40 @@ describe('extent of condition', () => {
   });
 });
 
+describe('one open finding per failed check', () => {
+  it('when a second audit of the same register technique raises the same failed check, then 409 names the open finding; a linked finding counts too', async () => {
+    const { cast, finding, ids } = await setUp();
+    const secondAudit = async (techniqueCode: string) => {
+      const audit = await expectOk(
+        await cast.auditor.post('/api/audits').send({
+          title: `Second look at ${techniqueCode}`,
+          criteria: 'Company ET procedure',
+          areaId: cast.areaId,
+          leadAuditorId: cast.auditor.user.id,
+          plannedStart: today(),
+          plannedEnd: inDays(10),
+          techniques: [{ techniqueId: ids.get(techniqueCode) }],
+        }),
+        201,
+      );
+      await expectOk(await send(cast.auditor, 'audits', audit.id, { type: 'START_FIELDWORK' }));
+      const run = await expectOk(await cast.auditor.post(`/api/audits/${audit.id}/checklist-runs`).send({ techniqueId: ids.get(techniqueCode) }), 201);
+      const resultIndex = run.output.results.findIndex((result: { rule: string; status: string }) => result.rule === 'orientation-coverage' && result.status === 'fail');
+      return cast.auditor.post(`/api/audits/${audit.id}/findings`).send({ checklistRunId: run.id, resultIndex });
+    };
+    const repeat = await secondAudit('TAC-ET-023');
+    expect(repeat.status).toBe(409);
+    expect(repeat.body.error).toMatchObject({ code: 'duplicate_finding', details: { findingId: finding.id, number: finding.number } });
+
+    // A sister technique already has a finding linked from the extent of condition for this rule.
+    const family = await expectOk(await cast.quality.agent.get(`/api/findings/${finding.id}/extent`));
+    const linked = family.members[0] as { id: number; number: string; techniqueCode: string };
+    const sister = await secondAudit(linked.techniqueCode);
+    expect(sister.status).toBe(409);
+    expect(sister.body.error.details).toMatchObject({ findingId: linked.id, number: linked.number });
+  });
+});
+
 describe('impact on past inspections', () => {
   let probe: Equipment;
   let otherProbe: Equipment;

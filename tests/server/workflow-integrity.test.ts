@@ -3,7 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { createInitialSnapshot, findingMachine, persistSnapshot, FINDING_MACHINE_VERSION } from '../../machines';
 import { Finding, TrailEntry } from '../../server/models';
 import { createTestContext, databaseName, rootSql, type TestContext } from '../helpers/test-app';
-import { auditWithFailedRun, expectOk, makeCast, person, raiseFromRun, send } from '../helpers/workflow';
+import { auditWithFailedRun, expectOk, makeCast, person, raiseByHand, raiseByHandBody, raiseFromRun, send } from '../helpers/workflow';
 
 let context: TestContext;
 beforeAll(() => {
@@ -42,14 +42,37 @@ describe('workflow integrity under concurrency and tampering', () => {
 
   it('when 20 findings are raised at once, then their numbers are consecutive with no gaps or duplicates', async () => {
     const cast = await makeCast(context);
-    const { audit, run, resultIndex } = await auditWithFailedRun(cast);
+    const { audit } = await auditWithFailedRun(cast);
     const responses = await Promise.all(
-      Array.from({ length: 20 }, () => cast.auditor.post(`/api/audits/${audit.id}/findings`).send({ checklistRunId: run.id, resultIndex })),
+      Array.from({ length: 20 }, (_, index) =>
+        cast.auditor.post(`/api/audits/${audit.id}/findings`).send(raiseByHandBody(`Observation ${index + 1}`)),
+      ),
     );
     expect(responses.map((response) => response.status)).toEqual(Array(20).fill(201));
     const numbers = responses.map((response) => Number(String(response.body.number).split('-')[2])).sort((a, b) => a - b);
     expect(new Set(numbers).size).toBe(20);
     expect(numbers[19] - numbers[0]).toBe(19);
+  });
+
+  it('when the same failed check is raised 10 times at once (a double click and more), then one finding is created and the others point to it', async () => {
+    const cast = await makeCast(context);
+    const { audit, run, resultIndex } = await auditWithFailedRun(cast);
+    const responses = await Promise.all(
+      Array.from({ length: 10 }, () => cast.auditor.post(`/api/audits/${audit.id}/findings`).send({ checklistRunId: run.id, resultIndex })),
+    );
+    const created = responses.filter((response) => response.status === 201);
+    expect(created).toHaveLength(1);
+    const refused = responses.filter((response) => response.status !== 201);
+    expect(refused.map((response) => response.status)).toEqual(Array(9).fill(409));
+    for (const response of refused) {
+      expect(response.body.error).toMatchObject({ code: 'duplicate_finding', details: { findingId: created[0].body.id, number: created[0].body.number } });
+      expect(response.body.error.message).toContain(created[0].body.number);
+    }
+    expect(await Finding.count({ where: { auditId: audit.id } })).toBe(1);
+
+    // Once that finding is withdrawn, the check may be raised again.
+    await expectOk(await send(cast.auditor, 'findings', created[0].body.id, { type: 'WITHDRAW', reason: 'Raised on the wrong audit' }));
+    await expectOk(await cast.auditor.post(`/api/audits/${audit.id}/findings`).send({ checklistRunId: run.id, resultIndex }), 201);
   });
 
   it('when a trail row is changed directly in the database, then /api/trail/verify reports that entry', async () => {
@@ -140,7 +163,7 @@ describe('workflow integrity under concurrency and tampering', () => {
     const cast = await makeCast(context);
     const { audit, run, resultIndex } = await auditWithFailedRun(cast);
     const first = await raiseFromRun(cast.auditor, audit.id, run.id, resultIndex);
-    const second = await raiseFromRun(cast.auditor, audit.id, run.id, resultIndex);
+    const second = await raiseByHand(cast.auditor, audit.id, 'Second observation');
     await expectOk(await send(cast.auditor, 'findings', second.id, { type: 'SUBMIT' }));
     await expectOk(await send(cast.quality, 'findings', second.id, { type: 'CLASSIFY', class: 'minor' }));
     const action = await expectOk(await cast.quality.post('/api/actions').send({ findingId: second.id, ownerId: cast.owner.user.id, dueDate: new Date().toISOString().slice(0, 10) }), 201);
