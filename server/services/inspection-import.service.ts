@@ -162,11 +162,13 @@ async function loadLookups(records: ParsedFile['records'], transaction?: Transac
 interface CheckedFile {
   preview: InspectionImportPreview;
   inputs: { row: number; input: InspectionInput }[];
+  /** The register's rows that repeat rows of the file (same revision, part, serial, day and work order). */
+  alreadyInRegister: { row: number; existing: Inspection }[];
 }
 
 async function checkFile(deps: AppDeps, buffer: Buffer, transaction?: Transaction): Promise<CheckedFile> {
   const parsed = parseFile(buffer);
-  if (!('records' in parsed)) return { preview: parsed, inputs: [] };
+  if (!('records' in parsed)) return { preview: parsed, inputs: [], alreadyInRegister: [] };
   const errors = [...parsed.errors];
   const lookups = await loadLookups(parsed.records, transaction);
   const rows: InspectionImportRow[] = [];
@@ -266,11 +268,12 @@ async function checkFile(deps: AppDeps, buffer: Buffer, transaction?: Transactio
       errors.push({ row: candidate.row, field: COLUMN_OF_FIELD[error.path], message: error.message });
     }
   }
-  errors.push(...(await duplicateErrors(candidates, transaction)));
+  const duplicates = await duplicateErrors(candidates, transaction);
+  errors.push(...duplicates.errors);
   errors.sort((a, b) => a.row - b.row);
   const warnings = equipmentWarnings(candidates, lookups.equipmentById);
   const valid = errors.length === 0;
-  return { preview: { rows, errors, warnings, valid }, inputs: valid ? candidates : [] };
+  return { preview: { rows, errors, warnings, valid }, inputs: valid ? candidates : [], alreadyInRegister: duplicates.alreadyInRegister };
 }
 
 const duplicateKey = (i: Pick<InspectionInput, 'techniqueRevisionId' | 'partNumber' | 'serialNumber' | 'performedOn' | 'workOrder'>) =>
@@ -280,8 +283,11 @@ const duplicateKey = (i: Pick<InspectionInput, 'techniqueRevisionId' | 'partNumb
  * The same inspection twice (same revision, part, serial, day and work order), in the file or
  * already in the register: almost always a file imported twice, so it is refused.
  */
-async function duplicateErrors(candidates: { row: number; input: InspectionInput }[], transaction?: Transaction): Promise<InspectionImportError[]> {
-  if (candidates.length === 0) return [];
+async function duplicateErrors(
+  candidates: { row: number; input: InspectionInput }[],
+  transaction?: Transaction,
+): Promise<{ errors: InspectionImportError[]; alreadyInRegister: CheckedFile['alreadyInRegister'] }> {
+  if (candidates.length === 0) return { errors: [], alreadyInRegister: [] };
   const errors: InspectionImportError[] = [];
   const firstRow = new Map<string, number>();
   for (const { row, input } of candidates) {
@@ -298,7 +304,7 @@ async function duplicateErrors(candidates: { row: number; input: InspectionInput
     await TechniqueRevision.findAll({ attributes: ['id'], where: { id: { [Op.in]: revisionIds } }, order: [['id', 'ASC']], lock: transaction.LOCK.UPDATE, transaction });
   }
   const existing = await Inspection.findAll({
-    attributes: ['id', 'techniqueRevisionId', 'partNumber', 'serialNumber', 'performedOn', 'workOrder'],
+    attributes: ['id', 'techniqueRevisionId', 'partNumber', 'serialNumber', 'performedOn', 'workOrder', 'createdById', 'createdAt'],
     where: {
       techniqueRevisionId: { [Op.in]: revisionIds },
       serialNumber: { [Op.in]: [...new Set(candidates.map((c) => c.input.serialNumber))] },
@@ -306,13 +312,36 @@ async function duplicateErrors(candidates: { row: number; input: InspectionInput
     ...(transaction ? { lock: transaction.LOCK.SHARE } : {}),
     transaction,
   });
-  const inRegister = new Set(existing.map(duplicateKey));
+  const inRegister = new Map(existing.map((row) => [duplicateKey(row), row]));
+  const alreadyInRegister: CheckedFile['alreadyInRegister'] = [];
   for (const { row, input } of candidates) {
-    if (inRegister.has(duplicateKey(input))) {
+    const match = inRegister.get(duplicateKey(input));
+    if (match) {
+      alreadyInRegister.push({ row, existing: match });
       errors.push({ row, field: '(row)', message: 'the register already holds this inspection (same revision, part, serial number, date and work order): was the file imported before?' });
     }
   }
-  return errors;
+  return { errors, alreadyInRegister };
+}
+
+/**
+ * A file whose every row is already in the register, with nothing else wrong: it was
+ * imported before (a second click, or the same file sent again). Say so plainly
+ * instead of listing every row as a problem.
+ */
+async function alreadyImported(checked: CheckedFile, transaction: Transaction): Promise<AppError | null> {
+  const { preview, alreadyInRegister } = checked;
+  if (preview.valid || preview.rows.length === 0 || alreadyInRegister.length !== preview.rows.length) return null;
+  const repeatedRows = new Set(alreadyInRegister.map((entry) => entry.row));
+  if (!preview.errors.every((error) => repeatedRows.has(error.row) && error.field === '(row)')) return null;
+  const latest = alreadyInRegister.map((entry) => entry.existing).reduce((a, b) => (a.createdAt > b.createdAt ? a : b));
+  const importer = await User.findByPk(latest.createdById, { attributes: ['id', 'displayName'], transaction });
+  const when = latest.createdAt.toISOString().slice(0, 16).replace('T', ' ');
+  const count = preview.rows.length;
+  return new AppError(
+    `${count === 1 ? 'The inspection in this file is' : `All ${count} inspections in this file are`} already in the register (recorded ${when} UTC by ${importer?.displayName ?? 'another user'}): nothing was written again.`,
+    { status: 409, code: 'already_imported', details: { rows: count, recordedAt: latest.createdAt.toISOString(), recordedBy: importer?.displayName ?? null } },
+  );
 }
 
 /** Equipment past its calibration due date on the day, or out of service now: shown, not refused (the record states what was used). */
@@ -339,7 +368,10 @@ export async function previewInspectionImport(deps: AppDeps, buffer: Buffer): Pr
 /** Writes the whole file or nothing: checked again inside the transaction that writes it. */
 export async function importInspections(deps: AppDeps, actorId: number, buffer: Buffer, fileName: string): Promise<InspectionImportResult> {
   return deps.sequelize.transaction(async (transaction) => {
-    const { preview, inputs } = await checkFile(deps, buffer, transaction);
+    const checked = await checkFile(deps, buffer, transaction);
+    const { preview, inputs } = checked;
+    const repeated = await alreadyImported(checked, transaction);
+    if (repeated) throw repeated;
     if (!preview.valid) {
       throw new AppError(`The file has ${preview.errors.length} ${preview.errors.length === 1 ? 'error' : 'errors'}; nothing was imported`, {
         status: 400,

@@ -110,7 +110,15 @@ describe('inspection CSV import', () => {
     expect(again.body.valid).toBe(false);
     expect(again.body.errors.map((e: { row: number; field: string }) => [e.row, e.field])).toEqual([[2, '(row)'], [3, '(row)']]);
     expect(again.body.errors[0].message).toContain('already holds this inspection');
-    expect((await commit(file)).status).toBe(400);
+    // Imported again whole: said plainly, not listed as two problems.
+    const reimport = await commit(file);
+    expect(reimport.status).toBe(409);
+    expect(reimport.body.error.code).toBe('already_imported');
+    expect(reimport.body.error.message).toMatch(/^All 2 inspections in this file are already in the register \(recorded \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC by .+\): nothing was written again\.$/);
+    expect(await rowsFor(workOrder)).toHaveLength(2);
+    // One new row beside the repeated ones: still refused row by row, nothing written.
+    const mixed = await commit([file, line({ workOrder, serial: 'T-3' })].join('\n'));
+    expect(mixed.status).toBe(400);
     expect(await rowsFor(workOrder)).toHaveLength(2);
 
     const repeated = await preview([HEADER, line({ workOrder: `${workOrder}-B`, serial: 'T-9' }), line({ workOrder: `${workOrder}-B`, serial: 'T-9' })].join('\n'));
@@ -121,9 +129,9 @@ describe('inspection CSV import', () => {
     const workOrder = `WO-RACE-${fixture.tag}`;
     const file = [HEADER, line({ workOrder, serial: 'R-1' }), line({ workOrder, serial: 'R-2' })].join('\n');
     const answers = await Promise.all([commit(file), commit(file)]);
-    expect(answers.map((answer) => answer.status).sort()).toEqual([201, 400]);
-    const refused = answers.find((answer) => answer.status === 400)!;
-    expect(refused.body.error.details[0].message).toContain('already holds this inspection');
+    expect(answers.map((answer) => answer.status).sort()).toEqual([201, 409]);
+    const refused = answers.find((answer) => answer.status === 409)!;
+    expect(refused.body.error).toMatchObject({ code: 'already_imported', details: { rows: 2 } });
     expect(await rowsFor(workOrder)).toHaveLength(2);
   });
 

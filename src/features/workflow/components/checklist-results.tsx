@@ -7,6 +7,7 @@ import type { RuleResult } from '../../../../shared/domain/checklist';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/states';
 import { useRaiseFinding, useUpdateChecklistNotes } from '../api/workflow';
+import { RaiseErrorNotice } from './raise-error-notice';
 
 const STATUS_TONE: Record<string, string> = {
   pass: 'bg-pass/15 text-pass',
@@ -87,7 +88,7 @@ export function ChecklistResults({ auditId, run, editable, canRaise }: { auditId
           </li>
         ))}
       </ol>
-      {raise.error ? <ErrorNotice error={raise.error} title="The finding was not raised" /> : null}
+      {raise.error ? <RaiseErrorNotice error={raise.error} /> : null}
       {saveNotes.error ? <ErrorNotice error={saveNotes.error} title="The notes were not saved" /> : null}
       {editable && (
         <div className="mt-2 flex justify-end">
