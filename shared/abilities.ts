@@ -10,6 +10,7 @@ export type SubjectName =
   | 'Policy'
   | 'Trail'
   | 'Mailbox'
+  | 'Notification'
   | 'Audit'
   | 'ChecklistRun'
   | 'Finding'
@@ -143,6 +144,7 @@ function adminRules({ can }: Builder) {
   can('update', 'Policy');
   can(['read', 'verify'], 'Trail');
   can('read', 'Mailbox');
+  can('read', 'Notification');
   can(['create', 'update'], 'Material');
 }
 
@@ -173,6 +175,8 @@ export function defineAbilityFor(user: AbilityUser): AppAbility {
   const builder = new AbilityBuilder<AppAbility>(createMongoAbility);
   builder.can('read', READABLE);
   builder.can('read', 'User');
+  // Everyone reads the messages Whorl sent them (administrators read everyone's: adminRules).
+  builder.can('read', 'Notification', { toUserId: user.id });
   builder.can('supersede', 'Evidence', { uploadedById: user.id });
   const roleRules: Record<Role, (b: Builder, u: AbilityUser) => void> = {
     auditor: auditorRules,

@@ -6,6 +6,7 @@ import { areaRoutes } from './areas.routes';
 import { trailRoutes } from './trail.routes';
 import { evidenceRoutes } from './evidence.routes';
 import { mailboxRoutes } from './mailbox.routes';
+import { notificationRoutes } from './notifications.routes';
 import { certificationRoutes } from './certifications.routes';
 import { equipmentRoutes } from './equipment.routes';
 import { dashboardRoutes } from './dashboard.routes';
@@ -23,4 +24,4 @@ import { impactRoutes } from './impact.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, notificationRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes];

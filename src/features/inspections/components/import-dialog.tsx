@@ -185,6 +185,8 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
   const rowCount = result?.rows.length ?? 0;
   // A 400 from the import itself carries the same per-row errors as a preview.
   const importErrors = importer.error instanceof ApiError && importer.error.code === 'invalid_import' ? (importer.error.details as InspectionImportError[]) : null;
+  // The whole file is in the register already (sent twice): nothing to correct, nothing lost.
+  const alreadyImported = importer.error instanceof ApiError && importer.error.code === 'already_imported' ? importer.error : null;
 
   return (
     <Dialog open={open} title="Import inspections from CSV" onClose={close}>
@@ -209,7 +211,15 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
               written as they stand. Review them with the quality manager.
             </p>
           )}
-          {importErrors ? <ErrorList errors={importErrors} /> : importer.error ? <ErrorNotice error={importer.error} title="Nothing was imported" /> : null}
+          {importErrors ? (
+            <ErrorList errors={importErrors} />
+          ) : alreadyImported ? (
+            <p role="status" className="rounded-md border border-ink/20 bg-paper px-3 py-2 text-sm">
+              {alreadyImported.message}
+            </p>
+          ) : importer.error ? (
+            <ErrorNotice error={importer.error} title="Nothing was imported" />
+          ) : null}
           <div className="flex justify-end gap-2">
             <Button variant="secondary" onClick={() => setStep('choose')} disabled={importer.isPending}>
               Back
