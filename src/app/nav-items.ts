@@ -17,7 +17,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/actions', label: 'Corrective actions' },
   { to: '/registers', label: 'Registers' },
   { to: '/trail', label: 'Trail', visible: (ability) => ability.can('verify', 'Trail') },
-  { to: '/mailbox', label: 'Mailbox', visible: (ability) => ability.can('read', 'Mailbox') },
+  { to: '/messages', label: 'Messages', visible: (ability) => ability.can('read', 'Notification') },
   { to: '/admin/users', label: 'People', visible: (ability) => ability.can('create', 'User') },
   { to: '/admin/policy', label: 'Policy', visible: (ability) => ability.can('update', 'Policy') },
 ];

@@ -40,7 +40,9 @@ export const router = createBrowserRouter([
       { path: 'registers/:tab?', lazy: () => import('./routes/registers') },
       { path: 'registers/equipment/:id/impact', lazy: () => import('./routes/equipment-impact') },
       { path: 'trail', lazy: () => import('./routes/trail') },
-      { path: 'mailbox', lazy: () => import('./routes/mailbox') },
+      { path: 'messages', lazy: () => import('./routes/messages') },
+      // The page's earlier address keeps working.
+      { path: 'mailbox', loader: () => redirect('/messages') },
       { path: 'admin/users', lazy: () => import('./routes/admin-users') },
       { path: 'admin/policy', lazy: () => import('./routes/admin-policy') },
       { path: '*', lazy: () => import('./routes/not-found') },

@@ -1,5 +1,6 @@
-// Evidence upload with its progress and hash, and the admin mailbox showing a
-// reminder. The reminder comes from the scheduler running in this test process
+// Evidence upload with its progress and hash, and the messages page showing a
+// reminder (to the administrator, who reads everyone's) and a person's own
+// delivery choice. The reminder comes from the scheduler running in this test process
 // against the e2e database, as a second app server would run it: the server
 // under test then sends it from the outbox to its local SMTP fake.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -99,24 +100,48 @@ describe('evidence and mail in the browser', () => {
     const page = await context.newPage();
     await signInAs(page, 'admin@tarnbrook.example');
     await page.getByRole('heading', { level: 1 }).waitFor();
-    const messages = page.getByRole('list', { name: 'Caught messages' });
+    const messages = page.getByRole('list', { name: 'Messages, newest first' });
+    const reminder = messages.getByRole('listitem').filter({ hasText: /is overdue by/ }).filter({ hasText: 'Sent' }).first();
     // The server's sender polls its outbox every few seconds.
     const deadline = Date.now() + 30_000;
     for (;;) {
-      await page.goto(`${inject('baseUrl')}/mailbox?q=${encodeURIComponent('overdue by')}`);
-      await page.getByRole('heading', { name: 'Mailbox' }).waitFor();
-      if (await messages.getByRole('button', { name: /is overdue by/ }).first().isVisible().catch(() => false)) break;
-      if (Date.now() > deadline) throw new Error('no overdue reminder reached the mailbox');
+      await page.goto(`${inject('baseUrl')}/messages?person=all&q=${encodeURIComponent('overdue by')}`);
+      await page.getByRole('heading', { name: 'Messages', level: 1 }).waitFor();
+      if (await reminder.isVisible().catch(() => false)) break;
+      if (Date.now() > deadline) throw new Error('no overdue reminder was sent');
       await page.waitForTimeout(1_000);
     }
-    await messages.getByRole('button', { name: /is overdue by/ }).first().click();
-    const article = page.getByRole('article');
-    await article.getByRole('heading', { name: /is overdue by/ }).waitFor();
-    const body = await article.locator('pre').textContent();
+    expect(await reminder.textContent()).toContain('Reminder: corrective action overdue');
+    expect(await reminder.getByRole('link', { name: 'Open the record' }).getAttribute('href')).toMatch(/^\/actions\/\d+$/);
+    await reminder.getByText('Read the message').click();
+    const body = await reminder.locator('details p').textContent();
     expect(body).toMatch(/Hello .+,/);
     expect(body).toContain(`${inject('baseUrl')}/actions/`);
-    expect(await article.textContent()).toMatch(/<outbox-\d+@whorl\.local>/);
-    await page.screenshot({ path: screenshotPath('mailbox-reminder'), fullPage: true });
+    // Nothing of a developer's mail tool: no message ids, no raw HTML.
+    expect(await page.locator('main').textContent()).not.toMatch(/Message-ID|<outbox-|<p>/);
+    await page.screenshot({ path: screenshotPath('messages-reminder'), fullPage: true });
+    await context.close();
+  });
+
+  it('when a technician opens Messages, then only their own messages show and they switch themselves to a daily digest', async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInAs(page, 'technician@tarnbrook.example');
+    await page.getByRole('link', { name: 'Messages' }).click();
+    await page.getByRole('heading', { name: 'Messages', level: 1 }).waitFor();
+    await page.getByRole('heading', { name: 'Sent to you' }).waitFor();
+    expect(await page.getByLabel('Whose messages').count()).toBe(0);
+    const digest = page.getByRole('radio', { name: /One daily digest/ });
+    const save = page.getByRole('button', { name: 'Save my choice' });
+    await page.getByRole('radio', { name: /Each message as it happens/ }).waitFor();
+    expect(await save.isDisabled()).toBe(true);
+    await digest.check();
+    await save.click();
+    await page.getByRole('status').filter({ hasText: 'Saved.' }).waitFor();
+    await page.reload();
+    await page.getByRole('heading', { name: 'How you receive messages' }).waitFor();
+    await expect.poll(() => digest.isChecked()).toBe(true);
+    await page.screenshot({ path: screenshotPath('messages-technician'), fullPage: true });
     await context.close();
   });
 });
