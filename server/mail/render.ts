@@ -17,7 +17,7 @@ export interface RenderedMail {
 const escapeHtml = (value: string) =>
   value.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
 
-const FOOTER = 'Whorl sends this message because of your role in the quality system. You can ask the administrator for one daily digest instead of single messages.';
+const FOOTER = 'Whorl sends this message because of your role in the quality system. On the Messages page you can read every message it sent you and choose one daily digest instead of single messages.';
 
 export function renderMail(content: MailContent): RenderedMail {
   const text = [
