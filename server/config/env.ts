@@ -17,7 +17,7 @@ const EnvSchema = z.object({
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
   /** Bounded waits on the database: a hung server turns into 503s, not requests that hang. */
   DATABASE_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(2_000),
-  DATABASE_QUERY_TIMEOUT_MS: z.coerce.number().int().min(500).max(600_000).default(15_000),
+  DATABASE_QUERY_TIMEOUT_MS: z.coerce.number().int().min(500).max(600_000).default(10_000),
   /** Key of the trail's HMAC chain (kept outside the database); without it, TRAIL_KEY_FILE is read or created. */
   TRAIL_HMAC_KEY: z.string().min(32, 'TRAIL_HMAC_KEY must be at least 32 characters').optional(),
   TRAIL_KEY_FILE: z.string().default('.data/trail-key'),

@@ -11,7 +11,7 @@ export interface DatabaseOptions {
 }
 
 /** One Sequelize instance per process; UTC everywhere (Sequelize sets the connection time zone). */
-export function createSequelize({ url, poolMax = 20, logging = false, acquireTimeoutMs = 2_000, queryTimeoutMs = 15_000 }: DatabaseOptions): Sequelize {
+export function createSequelize({ url, poolMax = 20, logging = false, acquireTimeoutMs = 2_000, queryTimeoutMs = 10_000 }: DatabaseOptions): Sequelize {
   return new Sequelize(url, {
     dialect: 'mariadb',
     logging: logging ? (sql) => console.log(sql) : false,
