@@ -94,6 +94,12 @@ export async function appendTrail(sequelize: Sequelize, transaction: Transaction
   return created;
 }
 
+/** The chain's head now (sequence and hash), as printed on reports and in digests. */
+export async function readTrailHead(sequelize: Sequelize): Promise<{ seq: number; hash: string }> {
+  const [head] = await sequelize.query<{ seq: number | string; hash: string }>('SELECT seq, hash FROM trail_head WHERE id = 1', { type: QueryTypes.SELECT });
+  return { seq: Number(head?.seq ?? 0), hash: head?.hash ?? '0'.repeat(64) };
+}
+
 /** Convenience: one transaction holding just a trail entry (sign-in events). */
 export async function recordTrail(sequelize: Sequelize, input: TrailInput): Promise<void> {
   await sequelize.transaction((transaction) => appendTrail(sequelize, transaction, input).then(() => undefined));
