@@ -18,11 +18,14 @@ export function createSequelize({ url, poolMax = 20, logging = false, acquireTim
     timezone: '+00:00',
     // A stopped (not dead) server accepts TCP connections and never answers: every
     // wait is bounded so that requests end in 503 instead of hanging.
-    pool: { max: poolMax, min: 0, acquire: acquireTimeoutMs, idle: 10_000 },
+    // The driver's socketTimeout also ends a connection that merely sits idle that
+    // long, so idle connections leave the pool well before (eviction runs every second).
+    pool: { max: poolMax, min: 0, acquire: acquireTimeoutMs, idle: Math.min(10_000, Math.floor(queryTimeoutMs / 2)) },
     dialectOptions: {
       connectTimeout: Math.min(acquireTimeoutMs, 5_000),
-      // The mariadb driver destroys a connection whose socket stays silent this long
-      // (its queryTimeout is a server-side limit, useless when the server is stopped).
+      // The mariadb driver destroys a connection whose socket stays silent this long,
+      // query in flight or not (its queryTimeout is a server-side limit, useless when
+      // the server is stopped).
       socketTimeout: queryTimeoutMs,
     },
     define: { underscored: true },
