@@ -4,7 +4,7 @@ import { requires } from '../middlewares/authorize';
 import type { AppDeps } from '../app-deps';
 
 /** How long the probe waits for the database: the answer comes within a second whatever the database does. */
-export const HEALTH_PING_TIMEOUT_MS = 800;
+export const HEALTH_PING_TIMEOUT_MS = 600;
 
 /** SELECT 1 against its own timer: a hung server (stopped, not dead) reads as down instead of holding the probe. */
 async function pingDatabase(sequelize: Sequelize, timeoutMs: number): Promise<boolean> {
