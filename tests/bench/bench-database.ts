@@ -3,8 +3,7 @@
 import { rmSync } from 'node:fs';
 import path from 'node:path';
 import { findFreePort, startLocalMariadb, type LocalInstance } from '../../server/db/local-mariadb';
-import { createSequelize } from '../../server/db/sequelize';
-import { migrate } from '../../server/db/migrator';
+import { migrateWithAccounts } from '../../server/db/privileges';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
 
@@ -17,9 +16,7 @@ export async function startBenchDatabase(): Promise<{ instance: LocalInstance; d
     rmSync(dir, { recursive: true, force: true });
   };
   try {
-    const sequelize = createSequelize({ url: instance.url });
-    await migrate(sequelize);
-    await sequelize.close();
+    await migrateWithAccounts({ ownerUrl: instance.ownerUrl, appUrl: instance.url });
   } catch (error) {
     await stop();
     throw error;

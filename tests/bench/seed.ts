@@ -7,7 +7,9 @@
 // Tables that do not exist yet are skipped and reported.
 import mariadb from 'mariadb';
 import { createHash } from 'node:crypto';
+import path from 'node:path';
 import { hashEntry } from '../../server/services/trail.service';
+import { loadTrailKey, setTrailKey } from '../../server/services/trail-key';
 import { hashPassword } from '../../server/auth/passwords';
 import { recordMachines, createInitialSnapshot, applyEvent, persistSnapshot } from '../../machines';
 import { DEMO_TECHNIQUES } from '../../shared/domain/demo-techniques';
@@ -62,6 +64,8 @@ function snapshotAfter(kind: 'finding' | 'action', events: object[], input?: obj
 
 export async function seedBenchDatabase(url: string, log: (line: string) => void = console.log): Promise<SeedResult> {
   const started = performance.now();
+  // The key the bench's app server reads (the default key file under the project's .data/).
+  setTrailKey(loadTrailKey({ trail: { keyFile: path.resolve(import.meta.dirname, '../../.data/trail-key'), anchorFile: '' } }));
   const parsed = new URL(url);
   const conn = await mariadb.createConnection({
     host: parsed.hostname,

@@ -14,6 +14,7 @@ import { verifyTrail } from '../../server/services/trail.service';
 import { AUDIT_STATES, CORRECTIVE_ACTION_STATES, FINDING_STATES } from '../../machines';
 import { startTestDatabase } from '../helpers/test-database';
 import { initModels } from '../../server/models';
+import { configureTrail } from '../../server/services/trail-anchors';
 
 let database: Awaited<ReturnType<typeof startTestDatabase>>;
 let sequelize: Sequelize;
@@ -25,7 +26,9 @@ beforeAll(async () => {
   // The steps of seedDemo, with the application's configuration on the context so evidence goes to storage.
   const config: AppConfig = loadConfig({
     NODE_ENV: 'test', DATABASE_URL: database.instance.url, SESSION_SECRET: 'seed-test-secret-that-is-long-enough', LOG_LEVEL: 'silent', STORAGE_DIR: storageDir,
+    TRAIL_ANCHOR_FILE: path.join(database.dir, 'trail-anchors.log'),
   });
+  configureTrail(config);
   const context = { sequelize, now: new Date(), users: {}, areas: {}, refs: {}, config } as SeedContext;
   for (const step of seedSteps) await step(context);
 }, 120_000);
