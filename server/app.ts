@@ -11,6 +11,7 @@ import { initModels } from './models';
 import { createHelmet, requireSameOrigin } from './middlewares/security';
 import { attachAbility, createSessionMiddleware, enforceSessionTimeouts } from './middlewares/session';
 import { denyUndeclared } from './middlewares/authorize';
+import { refuseIllFormedText } from './middlewares/text-input';
 import { createLoadShedding } from './middlewares/load-shedding';
 import { apiNotFound, createErrorHandler } from './middlewares/error-handler';
 import { createPassport } from './auth/passport';
@@ -38,6 +39,7 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
   api.use(denyUndeclared);
   api.use(healthRoutes(deps));
   api.use(express.json({ limit: '100kb', strict: true }));
+  api.use(refuseIllFormedText);
 
   const { middleware: sessionMiddleware, store } = createSessionMiddleware(sequelize, config);
   const passport = createPassport(sequelize, config.signIn.lockThreshold);

@@ -4,6 +4,7 @@
 import multer from 'multer';
 import type { RequestHandler } from 'express';
 import { AppError } from '../lib/app-error';
+import { multipartParseError } from './multipart-errors';
 
 const sizeText = (bytes: number) => (bytes >= 1024 * 1024 ? `${Math.round((bytes / (1024 * 1024)) * 10) / 10} MB` : `${Math.ceil(bytes / 1024)} KB`);
 
@@ -40,7 +41,7 @@ export function createCsvUpload({ maxBytes, maxRowsHint }: { maxBytes: number; m
         }
         return next(new AppError(`The upload form is not valid (${error.code}).`, { status: 400, code: 'invalid_input' }));
       }
-      next(error);
+      next(multipartParseError(error) ?? error);
     });
   };
 }

@@ -5,6 +5,7 @@ import multer from 'multer';
 import type { RequestHandler } from 'express';
 import type { AppConfig } from '../config/env';
 import { AppError } from '../lib/app-error';
+import { multipartParseError } from './multipart-errors';
 import { createHashingDiskEngine } from '../storage/hashing-disk-engine';
 import { uploadTempDir } from '../storage';
 
@@ -53,7 +54,7 @@ export function createEvidenceUpload(config: AppConfig): RequestHandler {
             return next(new AppError(`The upload form is not valid (${error.code}).`, { status: 400, code: 'invalid_input' }));
         }
       }
-      next(error);
+      next(multipartParseError(error) ?? error);
     });
   };
 }

@@ -17,6 +17,7 @@ import { importInspections, previewInspectionImport } from '../services/inspecti
 import { createCsvUpload } from '../middlewares/csv-upload';
 import { collectAllPages, sendCsv, type CsvColumn } from '../lib/csv';
 import type { AppDeps } from '../app-deps';
+import { safeFileName } from '../services/evidence-content';
 
 export const INSPECTION_CSV_COLUMNS: CsvColumn<InspectionView>[] = [
   { header: 'Date', value: (i) => i.performedOn },
@@ -79,8 +80,8 @@ export function inspectionRoutes(deps: AppDeps): Router {
 
   router.post('/inspections/import', requires.can('create', 'Inspection'), upload, async (req, res) => {
     parseBody(NoFieldsSchema, req);
-    // The file's name goes on each row's trail entry: bounded, as the client chose it.
-    const fileName = (req.file!.originalname || 'upload.csv').slice(0, 200);
+    // The file's name goes on each row's trail entry: bounded and cleaned like an evidence file's name.
+    const fileName = safeFileName(req.file!.originalname || 'upload.csv');
     res.status(201).json(await importInspections(deps, res.locals.user!.id, req.file!.buffer, fileName));
   });
 
