@@ -8,8 +8,8 @@ import path from 'node:path';
 import { csrfSync } from 'csrf-sync';
 import type { AppDeps } from './app-deps';
 import { initModels } from './models';
-import { createHelmet, requireSameOrigin } from './middlewares/security';
-import { attachAbility, createSessionMiddleware, enforceSessionTimeouts } from './middlewares/session';
+import { createHelmet, createSameOriginCheck } from './middlewares/security';
+import { attachAbility, createSessionMiddleware, enforceSessionTimeouts, requireOwnPassword } from './middlewares/session';
 import { denyUndeclared } from './middlewares/authorize';
 import { refuseIllFormedText } from './middlewares/text-input';
 import { createLoadShedding } from './middlewares/load-shedding';
@@ -42,13 +42,13 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
   api.use(refuseIllFormedText);
 
   const { middleware: sessionMiddleware, store } = createSessionMiddleware(sequelize, config);
-  const passport = createPassport(sequelize, config.signIn.lockThreshold);
+  const passport = createPassport(deps);
   api.use(sessionMiddleware);
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(enforceSessionTimeouts(config));
   api.use(attachAbility);
-  api.use(requireSameOrigin);
+  api.use(createSameOriginCheck(() => config.publicUrl));
 
   const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
   api.use((req, res, next) => {
@@ -58,6 +58,7 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
     csrf.csrfSynchronisedProtection(req, res, next);
   });
 
+  api.use(requireOwnPassword);
   api.use(sessionRoutes(deps, passport, csrf));
   for (const factory of featureRoutes) api.use(factory(deps));
   api.use(apiNotFound);
