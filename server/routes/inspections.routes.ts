@@ -64,7 +64,7 @@ export function inspectionRoutes(deps: AppDeps): Router {
 
   router.post('/inspections', requires.can('create', 'Inspection'), async (req, res) => {
     const input = parseBody(InspectionFieldsSchema, req);
-    res.status(201).json(await createInspection(deps, res.locals.user!.id, input));
+    res.status(201).json(await createInspection(deps, res.locals.ability!, res.locals.user!.id, input));
   });
 
   router.patch('/inspections/:id', requires.can('update', 'Inspection'), async (req, res) => {
@@ -75,14 +75,14 @@ export function inspectionRoutes(deps: AppDeps): Router {
 
   router.post('/inspections/import/preview', requires.can('create', 'Inspection'), upload, async (req, res) => {
     parseBody(NoFieldsSchema, req);
-    res.json(await previewInspectionImport(deps, req.file!.buffer));
+    res.json(await previewInspectionImport(deps, res.locals.ability!, req.file!.buffer));
   });
 
   router.post('/inspections/import', requires.can('create', 'Inspection'), upload, async (req, res) => {
     parseBody(NoFieldsSchema, req);
     // The file's name goes on each row's trail entry: bounded and cleaned like an evidence file's name.
     const fileName = safeFileName(req.file!.originalname || 'upload.csv');
-    res.status(201).json(await importInspections(deps, res.locals.user!.id, req.file!.buffer, fileName));
+    res.status(201).json(await importInspections(deps, { actorId: res.locals.user!.id, ability: res.locals.ability! }, req.file!.buffer, fileName));
   });
 
   return router;

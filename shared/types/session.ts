@@ -9,7 +9,7 @@ export interface SessionUser {
   areaId: number | null;
   areaName: string | null;
   /** An administrator set this person's password: until they choose their own, nothing else is open to them. */
-  passwordChangeRequired: boolean;
+  passwordChangeRequired?: boolean;
 }
 
 export interface SessionResponse {
