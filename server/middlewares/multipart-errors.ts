@@ -1,7 +1,15 @@
 // What busboy (under multer) throws for a body that is not well-formed
 // multipart: a bad part header, no boundary, a body cut short. These are the
 // client's fault, so they are a 400 that says so, never a 500.
+import type { RequestHandler } from 'express';
 import { AppError } from '../lib/app-error';
+
+/** Marks a route's multipart parser, so the input fuzzing finds every multipart route. */
+export const MULTIPART = Symbol.for('whorl.multipart');
+
+export function markMultipart(handler: RequestHandler): RequestHandler {
+  return Object.assign(handler, { [MULTIPART]: true });
+}
 
 const PARSE_ERRORS: [RegExp, string][] = [
   [/^Malformed part header/, 'a part header is malformed'],
