@@ -1,5 +1,6 @@
 // npm run restore FILE [-- --force]: loads a backup archive into the target
-// database (DATABASE_URL, or the local install) and evidence folder (STORAGE_DIR).
+// database (as DATABASE_OWNER_URL, granting DATABASE_URL its privileges; or the
+// local install) and evidence folder (STORAGE_DIR).
 // The archive is checked before anything is touched: the manifest, the dump's
 // hash and every evidence file's hash. A target database that already holds
 // tables is refused unless --force (which drops them first). Afterwards the
@@ -13,6 +14,8 @@ import { parseArgs } from 'node:util';
 import { QueryTypes } from 'sequelize';
 import { createSequelize } from '../server/db/sequelize';
 import { verifyTrail } from '../server/services/trail.service';
+import { configureTrail } from '../server/services/trail-anchors';
+import { accountOf, grantApplicationPrivileges } from '../server/db/privileges';
 import { ARCHIVE_FORMAT, listFiles, resolveTarget, sha256File, withOptionFile, type BackupManifest } from './lib/backup-common';
 
 const { values, positionals } = parseArgs({ options: { force: { type: 'boolean', default: false } }, allowPositionals: true });
@@ -51,7 +54,9 @@ async function main() {
   if (!existsSync(file)) throw new RefusedError(`No such file: ${file}`);
   const staging = await mkdtemp(path.join(os.tmpdir(), 'whorl-restore-'));
   const target = await resolveTarget(process.env);
-  const sequelize = createSequelize({ url: target.config.databaseUrl, poolMax: 2 });
+  const ownerUrl = target.config.databaseOwnerUrl ?? target.config.databaseUrl;
+  const sequelize = createSequelize({ url: ownerUrl, poolMax: 2, queryTimeoutMs: 600_000 });
+  configureTrail(target.config);
   try {
     const tar = spawnSync('tar', ['-xzf', path.resolve(file), '-C', staging, '--no-same-owner'], { encoding: 'utf8' });
     if (tar.status !== 0) throw new RefusedError(`Cannot read the archive: ${tar.stderr.trim()}`);
@@ -96,6 +101,9 @@ async function main() {
       console.warn('The target stores evidence in S3-compatible storage: copy the archive\'s evidence/ folder into the bucket with its own tools.');
     }
 
+    // The recreated tables need the application account's privileges again.
+    if (ownerUrl !== target.config.databaseUrl) await grantApplicationPrivileges(sequelize, await accountOf(target.config.databaseUrl));
+
     // Verification of what is now in place.
     const counts: Record<string, number> = {};
     const restoredTables = await sequelize.query<{ name: string }>(
@@ -106,7 +114,8 @@ async function main() {
       const [row] = await sequelize.query<{ n: number | string }>(`SELECT COUNT(*) AS n FROM \`${name.replace(/`/g, '``')}\``, { type: QueryTypes.SELECT });
       counts[name] = Number(row.n);
     }
-    const trail = counts.trail_entries !== undefined ? await verifyTrail(sequelize) : null;
+    // The chain alone: a backup is older than the anchors written since it was taken.
+    const trail = counts.trail_entries !== undefined && counts.trail_settings !== undefined ? await verifyTrail(sequelize, { anchors: false }) : null;
     const problems: string[] = [];
     if (trail && !trail.ok) problems.push(`the trail chain is broken at entry ${trail.firstBrokenSeq}`);
     let evidenceChecked = 0;

@@ -5,7 +5,8 @@ import path from 'node:path';
 import { loadConfig } from '../server/config/env';
 import { startLocalMariadb, type LocalInstance } from '../server/db/local-mariadb';
 import { createSequelize } from '../server/db/sequelize';
-import { migrate } from '../server/db/migrator';
+import { excessPrivileges, migrateWithAccounts } from '../server/db/privileges';
+import { configureTrail, writeTrailAnchor } from '../server/services/trail-anchors';
 import { isDatabaseEmpty, seedDemo } from '../server/db/seed';
 import { startServer } from '../server/index';
 import { ensureClientBuilt } from './lib/client-build';
@@ -19,14 +20,29 @@ async function main() {
     console.log(`Starting MariaDB on 127.0.0.1:${port} (data in .data/mariadb)…`);
     database = await startLocalMariadb({ dir: path.join(DATA_DIR, 'mariadb'), port, database: 'whorl' });
     env.DATABASE_URL = database.url;
+    env.DATABASE_OWNER_URL = database.ownerUrl;
   }
   env.SESSION_SECRET ??= localSessionSecret();
   env.NODE_ENV ??= 'production';
   const config = loadConfig(env);
 
-  const sequelize = createSequelize({ url: config.databaseUrl, poolMax: config.databasePoolMax });
-  const applied = await migrate(sequelize);
+  // Migrations as the owner account; then the application account gets its table privileges.
+  const applied = await migrateWithAccounts({ ownerUrl: config.databaseOwnerUrl, appUrl: config.databaseUrl });
   if (applied.length) console.log(`Applied ${applied.length} migration(s).`);
+  const sequelize = createSequelize({
+    url: config.databaseUrl,
+    poolMax: config.databasePoolMax,
+    acquireTimeoutMs: config.database.acquireTimeoutMs,
+    queryTimeoutMs: config.database.queryTimeoutMs,
+  });
+  const excess = await excessPrivileges(sequelize);
+  if (excess.length) {
+    console.warn(
+      `Warning: the application's database account holds more than it needs (see docs/security.md):\n  ${excess.join('\n  ')}`,
+    );
+  }
+  // The trail key and anchors: the demo data is signed and anchored like any other.
+  configureTrail(config);
   if (await isDatabaseEmpty(sequelize)) {
     console.log('Empty database: loading the Tarnbrook Aero Components demo scenario…');
     await seedDemo(sequelize, { config });
@@ -34,6 +50,7 @@ async function main() {
   await ensureClientBuilt();
 
   const running = await startServer(config, { sequelize });
+  await writeTrailAnchor(sequelize, 'start').catch((error) => console.error('Could not anchor the trail at start:', error));
   console.log(`Whorl is ready at ${running.url} (demo password: whorl-demo-2026). Press Ctrl-C to stop.`);
 
   let stopping = false;

@@ -8,6 +8,7 @@ import path from 'node:path';
 import { csrfSync } from 'csrf-sync';
 import type { AppDeps } from './app-deps';
 import { initModels } from './models';
+import { configureTrail } from './services/trail-anchors';
 import { createHelmet, createSameOriginCheck } from './middlewares/security';
 import { attachAbility, createSessionMiddleware, enforceSessionTimeouts, requireOwnPassword } from './middlewares/session';
 import { denyUndeclared } from './middlewares/authorize';
@@ -27,6 +28,7 @@ export interface CreateAppOptions {
 export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Express & { close(): void } {
   const { config, sequelize, logger } = deps;
   initModels(sequelize);
+  configureTrail(config);
 
   const app = express();
   app.disable('x-powered-by');

@@ -23,7 +23,14 @@ export interface RunningServer {
 
 export async function startServer(
   config: AppConfig,
-  { sequelize = createSequelize({ url: config.databaseUrl, poolMax: config.databasePoolMax }), clientDir = CLIENT_DIR }: { sequelize?: Sequelize; clientDir?: string } = {},
+  {
+    sequelize = createSequelize({
+      url: config.databaseUrl,
+      poolMax: config.databasePoolMax,
+      acquireTimeoutMs: config.database.acquireTimeoutMs,
+      queryTimeoutMs: config.database.queryTimeoutMs,
+    }),
+    clientDir = CLIENT_DIR }: { sequelize?: Sequelize; clientDir?: string } = {},
 ): Promise<RunningServer> {
   const logger = createLogger(config.logLevel);
   const deps: AppDeps = { config, sequelize, logger, clock: { now: () => new Date() } };

@@ -52,20 +52,23 @@ export function parseDatabaseUrl(url: string): Connection {
   };
 }
 
-/** DATABASE_URL when set, otherwise the local instance under .data/mariadb (started for the run if it is down). */
+/** DATABASE_URL (and DATABASE_OWNER_URL) when set, otherwise the local instance under .data/mariadb (started for the run if it is down). */
 export async function resolveTarget(source: Record<string, string | undefined>): Promise<Target> {
   const env = { ...source };
   let local: LocalInstance | undefined;
   if (!env.DATABASE_URL) {
     local = await startLocalMariadb({ dir: path.join(DATA_DIR, 'mariadb'), port: Number(env.DB_PORT ?? 3307), database: 'whorl' });
     env.DATABASE_URL = local.url;
+    env.DATABASE_OWNER_URL = local.ownerUrl;
   }
   env.SESSION_SECRET ??= 'x'.repeat(32); // not used: the scripts serve nothing
   const config = loadConfig(env);
   const objectsDir = config.storage.driver === 'local' ? path.resolve(ROOT, config.storage.dir, 'objects') : null;
   return {
     config,
-    connection: parseDatabaseUrl(config.databaseUrl),
+    // The owner account: the application account may not read triggers (a dump
+    // without them would restore a trail that accepts UPDATE and DELETE) nor drop tables.
+    connection: parseDatabaseUrl(config.databaseOwnerUrl ?? config.databaseUrl),
     objectsDir,
     async release() {
       if (local?.startedHere) await local.stop();

@@ -12,7 +12,17 @@ const EnvSchema = z.object({
   /** Public address used in e-mail links; defaults to http://HOST:PORT. */
   PUBLIC_URL: z.string().url().optional(),
   DATABASE_URL: z.string().regex(/^mariadb:\/\//, 'DATABASE_URL must start with mariadb://'),
+  /** The owner account that runs migrations (DDL); the app itself connects with DATABASE_URL. */
+  DATABASE_OWNER_URL: z.string().regex(/^mariadb:\/\//, 'DATABASE_OWNER_URL must start with mariadb://').optional(),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
+  /** Bounded waits on the database: a hung server turns into 503s, not requests that hang. */
+  DATABASE_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(2_000),
+  DATABASE_QUERY_TIMEOUT_MS: z.coerce.number().int().min(500).max(600_000).default(10_000),
+  /** Key of the trail's HMAC chain (kept outside the database); without it, TRAIL_KEY_FILE is read or created. */
+  TRAIL_HMAC_KEY: z.string().min(32, 'TRAIL_HMAC_KEY must be at least 32 characters').optional(),
+  TRAIL_KEY_FILE: z.string().default('.data/trail-key'),
+  /** Append-only log of the trail's anchors (head sequence and hash), outside the database. */
+  TRAIL_ANCHOR_FILE: z.string().default('.data/trail-anchors.log'),
   /** Requests one process works on at once; past it, 503 with Retry-After (load shedding). */
   MAX_IN_FLIGHT_REQUESTS: z.coerce.number().int().min(1).max(10_000).default(100),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters'),
@@ -55,7 +65,10 @@ export interface AppConfig {
   port: number;
   publicUrl: string;
   databaseUrl: string;
+  databaseOwnerUrl?: string;
   databasePoolMax: number;
+  database: { acquireTimeoutMs: number; queryTimeoutMs: number };
+  trail: { hmacKey?: string; keyFile: string; anchorFile: string };
   maxInFlightRequests: number;
   session: { secret: string; idleMinutes: number; absoluteHours: number; cookieSecure: boolean };
   trustProxy: boolean;
@@ -85,7 +98,10 @@ export function loadConfig(source: Record<string, string | undefined> = process.
     port: env.PORT,
     publicUrl: env.PUBLIC_URL ?? `http://${env.HOST}:${env.PORT}`,
     databaseUrl: env.DATABASE_URL,
+    databaseOwnerUrl: env.DATABASE_OWNER_URL,
     databasePoolMax: env.DATABASE_POOL_MAX,
+    database: { acquireTimeoutMs: env.DATABASE_ACQUIRE_TIMEOUT_MS, queryTimeoutMs: env.DATABASE_QUERY_TIMEOUT_MS },
+    trail: { hmacKey: env.TRAIL_HMAC_KEY, keyFile: env.TRAIL_KEY_FILE, anchorFile: env.TRAIL_ANCHOR_FILE },
     maxInFlightRequests: env.MAX_IN_FLIGHT_REQUESTS,
     session: {
       secret: env.SESSION_SECRET,

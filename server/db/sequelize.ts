@@ -4,19 +4,26 @@ export interface DatabaseOptions {
   url: string;
   poolMax?: number;
   logging?: boolean;
+  /** Longest wait for a pooled connection (including opening one) before the request fails with 503. */
+  acquireTimeoutMs?: number;
+  /** Longest silence on a connection with a query in flight before the driver gives up on it. */
+  queryTimeoutMs?: number;
 }
 
 /** One Sequelize instance per process; UTC everywhere (Sequelize sets the connection time zone). */
-export function createSequelize({ url, poolMax = 20, logging = false }: DatabaseOptions): Sequelize {
+export function createSequelize({ url, poolMax = 20, logging = false, acquireTimeoutMs = 2_000, queryTimeoutMs = 10_000 }: DatabaseOptions): Sequelize {
   return new Sequelize(url, {
     dialect: 'mariadb',
     logging: logging ? (sql) => console.log(sql) : false,
     timezone: '+00:00',
-    pool: { max: poolMax, min: 0, acquire: 10_000, idle: 10_000 },
+    // A stopped (not dead) server accepts TCP connections and never answers: every
+    // wait is bounded so that requests end in 503 instead of hanging.
+    pool: { max: poolMax, min: 0, acquire: acquireTimeoutMs, idle: 10_000 },
     dialectOptions: {
-      connectTimeout: 5_000,
-      // A dead server should fail a query quickly (503) rather than hang it.
-      socketTimeout: 30_000,
+      connectTimeout: Math.min(acquireTimeoutMs, 5_000),
+      // The mariadb driver destroys a connection whose socket stays silent this long
+      // (its queryTimeout is a server-side limit, useless when the server is stopped).
+      socketTimeout: queryTimeoutMs,
     },
     define: { underscored: true },
   });

@@ -7,6 +7,7 @@ import { enqueueMail } from '../mail/outbox';
 import { recordUrl } from '../mail/render';
 import { isoDay } from './reminder-sources';
 import type { ScheduledJob } from './scheduler';
+import { readTrailHead } from '../services/trail.service';
 
 const escapeHtml = (value: string) => value.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 const linkIn = (text: string) => text.match(/https?:\/\/\S+/)?.[0] ?? null;
@@ -22,6 +23,9 @@ export const digestJob: ScheduledJob = {
         WHERE o.status = 'held' AND o.created_at <= ?`,
       { replacements: [now], type: QueryTypes.SELECT, transaction },
     );
+    // Printed in every digest: a copy of the trail's head in each reader's mailbox, outside the database.
+    const head = people.length ? await readTrailHead(deps.sequelize) : null;
+    const headLine = head ? `Trail head at ${now.toISOString().slice(0, 16).replace('T', ' ')} UTC: sequence ${head.seq}, hash ${head.hash}` : '';
     for (const person of people) {
       const userId = Number(person.to_user_id);
       const digestKey = `digest:${userId}:${today}:to:${userId}`;
@@ -44,11 +48,14 @@ export const digestJob: ScheduledJob = {
         ...items.map((item) => `• ${item.subject}${item.link ? `\n  ${item.link}` : ''}`),
         '',
         `Home page: ${recordUrl(deps.config.publicUrl, '/')}`,
+        '',
+        headLine,
       ].join('\n');
       const html = [
         `<p>Hello ${escapeHtml(person.display_name)},</p><p>Here is what Whorl had for you since your last digest:</p><ul>`,
         ...items.map((item) => `<li>${item.link ? `<a href="${escapeHtml(item.link)}">${escapeHtml(item.subject)}</a>` : escapeHtml(item.subject)}</li>`),
         '</ul>',
+        `<p style="font-family:monospace;font-size:11px;color:#555">${escapeHtml(headLine)}</p>`,
       ].join('\n');
       await enqueueMail(
         transaction,

@@ -5,6 +5,7 @@ import { certificationReminderSource } from './certification-reminders.source';
 import { remindersJob } from './reminders.job';
 import { digestJob } from './digest.job';
 import { evidenceSweepJob } from './evidence-sweep.job';
+import { trailAnchorJob } from './trail-anchor.job';
 import type { ScheduledJob } from './scheduler';
 
 registerReminderSource(actionReminderSource);
@@ -12,7 +13,7 @@ registerReminderSource(signoffReminderSource);
 registerReminderSource(auditReminderSource);
 registerReminderSource(certificationReminderSource);
 
-export const SCHEDULED_JOBS: ScheduledJob[] = [remindersJob, digestJob, evidenceSweepJob];
+export const SCHEDULED_JOBS: ScheduledJob[] = [remindersJob, digestJob, evidenceSweepJob, trailAnchorJob];
 
 export { createScheduler, type Scheduler, type ScheduledJob } from './scheduler';
 export { registerReminderSource, type Reminder, type ReminderSource } from './reminder-sources';

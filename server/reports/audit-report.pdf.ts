@@ -42,7 +42,7 @@ function computedValues(doc: Doc, output: ChecklistOutput, technique: Technique 
   small(doc, lines.join('\n'));
 }
 
-export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, generatedAt: Date): Promise<Buffer> {
+export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, generatedAt: Date, trailHead?: { seq: number; hash: string }): Promise<Buffer> {
   const { record: audit, runTechniques } = exported.content;
   const doc = createReportDocument({ title: `Audit report: ${audit.title}`, subject: `Audit ${audit.id}` });
   title(doc, 'Internal audit report', audit.title);
@@ -108,5 +108,5 @@ export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, g
   heading(doc, 'Caution');
   paragraph(doc, CAUTION_TEXT, { size: 9 });
 
-  return finishReport(doc, { recordLabel: `Audit report #${audit.id}`, sha256: exported.sha256, generatedAt });
+  return finishReport(doc, { recordLabel: `Audit report #${audit.id}`, sha256: exported.sha256, generatedAt, trailHead });
 }

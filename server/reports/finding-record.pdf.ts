@@ -35,7 +35,7 @@ function changesText(changes: unknown): string {
   return text.length > 600 ? `${text.slice(0, 600)}…` : text;
 }
 
-export async function renderFindingRecord(exported: ExportEnvelope<FindingExport>, generatedAt: Date): Promise<Buffer> {
+export async function renderFindingRecord(exported: ExportEnvelope<FindingExport>, generatedAt: Date, trailHead?: { seq: number; hash: string }): Promise<Buffer> {
   const { record: finding, action, evidence: files, trail, extent, impact } = exported.content;
   const doc = createReportDocument({ title: `Finding record ${finding.number}`, subject: finding.title });
   title(doc, `Finding record ${finding.number}`, finding.title);
@@ -126,5 +126,5 @@ export async function renderFindingRecord(exported: ExportEnvelope<FindingExport
 
   heading(doc, 'Caution');
   paragraph(doc, CAUTION_TEXT, { size: 9 });
-  return finishReport(doc, { recordLabel: `Finding record ${finding.number}`, sha256: exported.sha256, generatedAt });
+  return finishReport(doc, { recordLabel: `Finding record ${finding.number}`, sha256: exported.sha256, generatedAt, trailHead });
 }

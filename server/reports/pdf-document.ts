@@ -41,7 +41,17 @@ export function createReportDocument({ title, subject }: { title: string; subjec
 }
 
 /** Writes the footer on every buffered page, then ends the document and returns its bytes. */
-export async function finishReport(doc: Doc, { recordLabel, sha256, generatedAt }: { recordLabel: string; sha256: string; generatedAt: Date }): Promise<Buffer> {
+export async function finishReport(
+  doc: Doc,
+  { recordLabel, sha256, generatedAt, trailHead }: { recordLabel: string; sha256: string; generatedAt: Date; trailHead?: { seq: number; hash: string } },
+): Promise<Buffer> {
+  // The closing line: the trail's head when printed, to compare later with the trail and its anchors.
+  if (trailHead) {
+    doc.moveDown(1);
+    doc.font('Mono').fontSize(7).fillColor(SOFT).text(`Trail head at print: sequence ${trailHead.seq}, hash ${trailHead.hash}`, MARGIN, undefined, {
+      width: doc.page.width - 2 * MARGIN,
+    });
+  }
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));
   const ended = new Promise<void>((resolve, reject) => {

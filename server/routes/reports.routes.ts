@@ -18,6 +18,7 @@ import {
 } from '../services/record-export.service';
 import { renderAuditReport } from '../reports/audit-report.pdf';
 import { renderFindingRecord } from '../reports/finding-record.pdf';
+import { readTrailHead } from '../services/trail.service';
 
 const exporterOf = (res: Response): Exporter => ({ user: res.locals.user!, ability: res.locals.ability! });
 
@@ -40,13 +41,13 @@ export function reportRoutes(deps: AppDeps): Router {
   router.get('/audits/:id/report.pdf', requires.can('export', 'Audit'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const exported = await exportAudit(deps, exporterOf(res), id);
-    sendAttachment(res, await renderAuditReport(exported, deps.clock.now()), 'application/pdf', `audit-${id}-report.pdf`);
+    sendAttachment(res, await renderAuditReport(exported, deps.clock.now(), await readTrailHead(deps.sequelize)), 'application/pdf', `audit-${id}-report.pdf`);
   });
 
   router.get('/findings/:id/record.pdf', requires.can('export', 'Finding'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const exported = await exportFinding(deps, exporterOf(res), id);
-    sendAttachment(res, await renderFindingRecord(exported, deps.clock.now()), 'application/pdf', `finding-${safe(exported.content.record.number)}.pdf`);
+    sendAttachment(res, await renderFindingRecord(exported, deps.clock.now(), await readTrailHead(deps.sequelize)), 'application/pdf', `finding-${safe(exported.content.record.number)}.pdf`);
   });
 
   router.get('/audits/:id/export.json', requires.can('export', 'Audit'), async (req, res) => {

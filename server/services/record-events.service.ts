@@ -27,6 +27,7 @@ import { verifyPassword } from '../auth/passwords';
 import { accountLockPolicy, registerFailure } from '../auth/sign-in.service';
 import { appendTrail, recordTrail } from './trail.service';
 import { recordSignature } from './signatures.service';
+import { writeTrailAnchor } from './trail-anchors';
 import { runEffectsAfterCommit, runEffectsInTransaction, type EffectBatch } from './effects';
 import { loadFindingDuePolicy } from './workflow-policy';
 import {
@@ -277,6 +278,8 @@ export async function applyRecordEvent(
     throw error;
   }
   await runEffectsAfterCommit(batches);
+  // Every signature anchors the trail outside the database; a failed anchor never undoes the signature.
+  if (meaning) await writeTrailAnchor(sequelize, 'signature').catch((error) => deps.logger.error('Could not write the trail anchor after a signature', error));
 }
 
 export { SETTLED_FINDING_STATES };

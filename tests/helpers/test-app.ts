@@ -2,12 +2,13 @@
 // signed-in Supertest agents. Each test file builds its own.
 import { randomBytes } from 'node:crypto';
 import { spawnSync } from 'node:child_process';
+import path from 'node:path';
 import request from 'supertest';
 import { inject } from 'vitest';
 import { createApp } from '../../server/app';
 import { loadConfig, type AppConfig } from '../../server/config/env';
 import { createSequelize } from '../../server/db/sequelize';
-import { migrate } from '../../server/db/migrator';
+import { migrateWithAccounts } from '../../server/db/privileges';
 import { createLogger } from '../../server/lib/logger';
 import type { AppDeps } from '../../server/app-deps';
 import type { Sequelize } from 'sequelize';
@@ -33,6 +34,9 @@ export function testConfig(overrides: Record<string, string> = {}): AppConfig {
     LOG_LEVEL: 'silent',
     SIGNIN_RATE_LIMIT: '1000',
     SCHEDULER: 'false',
+    // The run's own key and anchor log, removed with its database.
+    TRAIL_HMAC_KEY: 'test-trail-key-that-is-long-enough-for-hmac',
+    TRAIL_ANCHOR_FILE: path.join(inject('databaseDir'), 'trail-anchors.log'),
     ...overrides,
   });
 }
@@ -163,15 +167,14 @@ export function databaseName(): string {
 export async function createIsolatedDatabase(label: string): Promise<string> {
   const shared = new URL(inject('databaseUrl'));
   const name = `${shared.pathname.slice(1)}_${label.replace(/[^a-z0-9_]/gi, '')}_${randomBytes(3).toString('hex')}`;
-  const user = decodeURIComponent(shared.username);
-  rootSql(`CREATE DATABASE \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci; GRANT ALL PRIVILEGES ON \`${name}\`.* TO '${user}'@'127.0.0.1'`);
+  const owner = new URL(inject('databaseOwnerUrl'));
+  rootSql(
+    `CREATE DATABASE \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci; ` +
+      `GRANT ALL PRIVILEGES ON \`${name}\`.* TO '${decodeURIComponent(owner.username)}'@'127.0.0.1' WITH GRANT OPTION`,
+  );
   const url = new URL(shared.toString());
   url.pathname = `/${name}`;
-  const sequelize = createSequelize({ url: url.toString() });
-  try {
-    await migrate(sequelize);
-  } finally {
-    await sequelize.close();
-  }
+  owner.pathname = `/${name}`;
+  await migrateWithAccounts({ ownerUrl: owner.toString(), appUrl: url.toString() });
   return url.toString();
 }

@@ -3,8 +3,7 @@
 import { rmSync } from 'node:fs';
 import path from 'node:path';
 import { findFreePort, startLocalMariadb, type LocalInstance } from '../../server/db/local-mariadb';
-import { createSequelize } from '../../server/db/sequelize';
-import { migrate } from '../../server/db/migrator';
+import { migrateWithAccounts } from '../../server/db/privileges';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
 
@@ -12,14 +11,12 @@ export async function startTestDatabase(label: string): Promise<{ instance: Loca
   const dir = path.join(ROOT, '.data', `test-${label}-${process.pid}-${Date.now()}`);
   const port = await findFreePort();
   const instance = await startLocalMariadb({ dir, port, database: `whorl_${label}` });
-  const sequelize = createSequelize({ url: instance.url });
   try {
-    await migrate(sequelize);
+    // As in production: migrations as the owner, the application account with data privileges only.
+    await migrateWithAccounts({ ownerUrl: instance.ownerUrl, appUrl: instance.url });
   } catch (error) {
     await instance.stop();
     throw error;
-  } finally {
-    await sequelize.close();
   }
   return {
     instance,

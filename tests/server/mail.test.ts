@@ -223,6 +223,7 @@ describe('e-mail through the outbox', () => {
       const digests = (await caughtFor(cast.owner.user.email)).filter((message) => message.subject?.startsWith('Whorl daily digest'));
       expect(digests).toHaveLength(1);
       expect(digests[0].textBody).toContain(`Corrective action ${action.number} is assigned to you`);
+      expect(digests[0].textBody).toMatch(/Trail head at .* UTC: sequence \d+, hash [0-9a-f]{64}/);
       await runDay(tomorrow);
       expect((await caughtFor(cast.owner.user.email)).filter((message) => message.subject?.startsWith('Whorl daily digest'))).toHaveLength(1);
     } finally {

@@ -57,6 +57,8 @@ describe('reports and exports', () => {
       expect(page).toContain('certified ET Level 3');
     });
     const auditText = auditPages.join('\n');
+    // The closing line: the trail's head when printed (a 64-hex hash, possibly wrapped by pdftotext's layout).
+    expect(auditText).toMatch(/Trail head at print: sequence \d+, hash [0-9a-f]{16}/);
     expect(auditText).toContain(`Signed by ${issue!.printedName}`);
     expect(auditText).toContain(`Meaning: ${issue!.meaning}`);
     expect(auditText).toContain(`Date and time: ${utcMinute(issue!.signedAt.toISOString())}`);

@@ -1,5 +1,6 @@
 // Seeds the demo scenario into an empty database. Each step is a file of its
 // own; a feature that brings demo records adds its step to the list.
+import { configureTrail } from '../../services/trail-anchors';
 import type { Sequelize } from 'sequelize';
 import { initModels, User } from '../../models';
 import { seedPeople } from './people.seed';
@@ -22,6 +23,8 @@ export async function seedDemo(
   { now = new Date(), config }: { now?: Date; config?: AppConfig } = {},
 ): Promise<SeedContext> {
   initModels(sequelize);
+  // The demo's trail entries are keyed and its signatures anchored like any others.
+  if (config) configureTrail(config);
   const context: SeedContext = { sequelize, now, users: {}, areas: {}, refs: {}, config };
   for (const step of seedSteps) await step(context);
   return context;

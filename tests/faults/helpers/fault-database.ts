@@ -10,6 +10,10 @@ import { initModels } from '../../../server/models';
 import { hashPassword } from '../../../server/auth/passwords';
 import type { Role } from '../../../shared/roles';
 import { startTestDatabase } from '../../helpers/test-database';
+import { loadConfig } from '../../../server/config/env';
+import { configureTrail } from '../../../server/services/trail-anchors';
+
+const ROOT = path.resolve(import.meta.dirname, '../../..');
 
 export const FAULT_PASSWORD = 'fault test password 2026';
 
@@ -21,6 +25,8 @@ export interface FaultUser {
 
 export interface FaultDatabase {
   url: string;
+  /** The owner account (migrations, DDL). */
+  ownerUrl: string;
   dir: string;
   port: number;
   socket: string;
@@ -28,6 +34,9 @@ export interface FaultDatabase {
   rootSql(sql: string): string;
   /** SIGKILL of mariadbd: no clean shutdown, like a crash or a pulled plug. */
   kill(): void;
+  /** SIGSTOP / SIGCONT of mariadbd: a server that hangs (connections open, nothing answers), then resumes. */
+  pause(): void;
+  resume(): void;
   /** Starts the server again on the same data folder and port. */
   restart(): Promise<void>;
   createUser(roles: Role[], tag?: string): Promise<FaultUser>;
@@ -42,9 +51,13 @@ export async function startFaultDatabase(label: string): Promise<FaultDatabase> 
   const databaseName = new URL(instance.url).pathname.slice(1);
   const sequelize = createSequelize({ url: instance.url, poolMax: 5 });
   initModels(sequelize);
+  // The app processes read the default key file under the project's .data/ (their working folder): the same key here.
+  configureTrail(loadConfig({ DATABASE_URL: instance.url, SESSION_SECRET: 'x'.repeat(32), TRAIL_KEY_FILE: path.join(ROOT, '.data', 'trail-key'), TRAIL_ANCHOR_FILE: path.join(ROOT, '.data', 'trail-anchors.log') }));
   let counter = 0;
+  const serverPid = () => Number(readFileSync(path.join(dir, 'mysqld.pid'), 'utf8').trim());
   return {
     url: instance.url,
+    ownerUrl: instance.ownerUrl,
     dir,
     port: instance.port,
     socket: instance.socket,
@@ -54,6 +67,12 @@ export async function startFaultDatabase(label: string): Promise<FaultDatabase> 
       const pidFile = path.join(dir, 'mysqld.pid');
       if (!existsSync(pidFile)) return;
       process.kill(Number(readFileSync(pidFile, 'utf8').trim()), 'SIGKILL');
+    },
+    pause() {
+      process.kill(serverPid(), 'SIGSTOP');
+    },
+    resume() {
+      process.kill(serverPid(), 'SIGCONT');
     },
     async restart() {
       // Let the killed process release its port and files before the new one binds them.
