@@ -6,6 +6,7 @@ import { createSequelize } from '../server/db/sequelize';
 import { initModels, User } from '../server/models';
 import { clearAccountLock, normaliseEmail } from '../server/auth/sign-in.service';
 import { resolveTarget } from './lib/backup-common';
+import { configureTrail } from '../server/services/trail-anchors';
 
 async function main() {
   const email = process.argv.slice(2).find((arg) => !arg.startsWith('-'));
@@ -18,6 +19,8 @@ async function main() {
     : await resolveTarget(process.env);
   const sequelize = createSequelize({ url: target.config.databaseUrl });
   try {
+    // The unlock is a trail entry: chained with the same key as the server's (TRAIL_HMAC_KEY or TRAIL_KEY_FILE).
+    configureTrail(target.config);
     initModels(sequelize);
     const user = await User.findOne({ where: { email: normaliseEmail(email) } });
     if (!user) {

@@ -5,7 +5,6 @@ import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { inject } from 'vitest';
 import { User } from '../../server/models';
 import { createTestContext, makeUser, signIn, TEST_PASSWORD, type TestContext } from '../helpers/test-app';
 
@@ -67,7 +66,13 @@ describe('temporary lockout', () => {
     expect((await attempt(user.email, TEST_PASSWORD)).status).toBe(401);
     const run = await promisify(execFile)('npx', ['tsx', 'scripts/unlock.ts', `  ${user.email.toUpperCase()} `], {
       encoding: 'utf8',
-      env: { ...process.env, DATABASE_URL: inject('databaseUrl') },
+      // The server's trail key and anchor log: the unlock is chained like any other entry.
+      env: {
+        ...process.env,
+        DATABASE_URL: context.config.databaseUrl,
+        TRAIL_HMAC_KEY: context.config.trail.hmacKey,
+        TRAIL_ANCHOR_FILE: context.config.trail.anchorFile,
+      },
     });
     expect(run.stdout).toContain('sign-in lock lifted');
     expect((await attempt(user.email, TEST_PASSWORD)).status).toBe(200);
