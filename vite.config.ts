@@ -10,7 +10,13 @@ export default defineConfig({
   build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 900 },
   server: {
     port: 5173,
-    proxy: { '/api': 'http://127.0.0.1:5180' },
+    proxy: {
+      '/api': {
+        target: 'http://127.0.0.1:5180',
+        // The API accepts only its own public address as Origin; this dev page is that API's client.
+        configure: (proxy) => proxy.on('proxyReq', (request) => request.getHeader('origin') && request.setHeader('origin', 'http://127.0.0.1:5180')),
+      },
+    },
   },
   test: {
     projects: [

@@ -9,9 +9,10 @@ import { csrfSync } from 'csrf-sync';
 import type { AppDeps } from './app-deps';
 import { initModels } from './models';
 import { configureTrail } from './services/trail-anchors';
-import { createHelmet, requireSameOrigin } from './middlewares/security';
-import { attachAbility, createSessionMiddleware, enforceSessionTimeouts } from './middlewares/session';
+import { createHelmet, createSameOriginCheck } from './middlewares/security';
+import { attachAbility, createSessionMiddleware, enforceSessionTimeouts, requireOwnPassword } from './middlewares/session';
 import { denyUndeclared } from './middlewares/authorize';
+import { refuseIllFormedText } from './middlewares/text-input';
 import { createLoadShedding } from './middlewares/load-shedding';
 import { apiNotFound, createErrorHandler } from './middlewares/error-handler';
 import { createPassport } from './auth/passport';
@@ -40,15 +41,16 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
   api.use(denyUndeclared);
   api.use(healthRoutes(deps));
   api.use(express.json({ limit: '100kb', strict: true }));
+  api.use(refuseIllFormedText);
 
   const { middleware: sessionMiddleware, store } = createSessionMiddleware(sequelize, config);
-  const passport = createPassport(sequelize, config.signIn.lockThreshold);
+  const passport = createPassport(deps);
   api.use(sessionMiddleware);
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(enforceSessionTimeouts(config));
   api.use(attachAbility);
-  api.use(requireSameOrigin);
+  api.use(createSameOriginCheck(() => config.publicUrl));
 
   const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
   api.use((req, res, next) => {
@@ -58,6 +60,7 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): Expres
     csrf.csrfSynchronisedProtection(req, res, next);
   });
 
+  api.use(requireOwnPassword);
   api.use(sessionRoutes(deps, passport, csrf));
   for (const factory of featureRoutes) api.use(factory(deps));
   api.use(apiNotFound);

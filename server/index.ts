@@ -48,6 +48,8 @@ export async function startServer(
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
   const url = `http://${config.host}:${port}`;
+  // PORT=0 picks a free port: without PUBLIC_URL the public address is known only now.
+  if (new URL(config.publicUrl).port === '0') config.publicUrl = url;
   return {
     server,
     deps,

@@ -103,6 +103,7 @@ function qualityManagerRules({ can }: Builder) {
   can(['ISSUE', 'CLOSE', 'CANCEL'], 'Audit');
   can(['WITHDRAW', 'CLASSIFY', 'RECORD_CONTAINMENT', 'CONFIRM_EFFECTIVE', 'NOT_EFFECTIVE'], 'Finding');
   can(['assess_extent', 'decide_impact'], 'Finding');
+  // Quality records inspections for any inspector (a batch from another shift, a paper record).
   can(['create', 'update'], 'Inspection');
   can('create', 'CorrectiveAction');
   can(['APPROVE_PLAN', 'RETURN_PLAN', 'VERIFY', 'RETURN', 'APPROVE_EXTENSION', 'REJECT_EXTENSION'], 'CorrectiveAction');
@@ -110,18 +111,18 @@ function qualityManagerRules({ can }: Builder) {
   can('create', 'Evidence');
   can('supersede', 'Evidence');
   can('export', 'all');
-  can(['read', 'verify'], 'Trail');
+  can('verify', 'Trail');
 }
 
 function accountableManagerRules({ can }: Builder) {
   can('CLOSE', 'Finding');
   can('export', 'all');
-  can(['read', 'verify'], 'Trail');
+  can('verify', 'Trail');
 }
 
 function actionOwnerRules({ can }: Builder, user: AbilityUser) {
-  // The people who perform inspections record them; a correction is theirs or quality's.
-  can('create', 'Inspection');
+  // The people who perform inspections record their own, named as the inspector; a correction is theirs or quality's.
+  can('create', 'Inspection', { inspectorId: user.id });
   can('update', 'Inspection', { createdById: user.id });
   can(OWNER_ACTION_EVENTS, 'CorrectiveAction', { ownerId: user.id });
   // Evidence subjects carry the owning record's type and its owner (recordOwnerId).
@@ -134,7 +135,8 @@ function level3Rules(builder: Builder, user: AbilityUser) {
   can('update', 'Technique', { state: 'draft' });
   can('approve', 'Technique', { state: 'draft' });
   can('create', 'Evidence', { recordType: 'technique' });
-  can(['create', 'update'], 'Inspection');
+  // A Level 3 corrects any inspection; records new ones as their own inspector (actionOwnerRules).
+  can('update', 'Inspection');
   actionOwnerRules(builder, user);
 }
 
@@ -142,21 +144,48 @@ function adminRules({ can }: Builder) {
   can(['read', 'create', 'update', 'unlock'], 'User');
   can(['create', 'update'], 'Area');
   can('update', 'Policy');
+  // Every record's timeline, people's sign-ins included (evidence timelines follow the file's read rule).
   can(['read', 'verify'], 'Trail');
   can('read', 'Mailbox');
   can('read', 'Notification');
   can(['create', 'update'], 'Material');
 }
 
+/** Audit events, every one of which an auditor of the audited area may not send. */
+const AUDIT_EVENTS: AuditEvent[] = ['START_FIELDWORK', 'FINISH_FIELDWORK', 'ISSUE', 'CLOSE', 'CANCEL'];
+
 /** Segregation of duties: these override every role above. */
 function segregationRules({ cannot }: Builder, user: AbilityUser) {
-  cannot(['VERIFY', 'RETURN'], 'CorrectiveAction', { ownerId: user.id });
+  // Nobody approves or verifies their own work.
+  cannot('approve', 'Technique', { createdById: user.id });
+  cannot('approve', 'Technique', { updatedById: user.id });
+  cannot(['APPROVE_PLAN', 'RETURN_PLAN', 'VERIFY', 'RETURN', 'APPROVE_EXTENSION', 'REJECT_EXTENSION'], 'CorrectiveAction', { ownerId: user.id });
   cannot(['CONFIRM_EFFECTIVE', 'NOT_EFFECTIVE'], 'Finding', { actionOwnerId: user.id });
   cannot('CLOSE', 'Finding', { authorId: user.id });
   cannot('CLOSE', 'Finding', { actionOwnerId: user.id });
-  // An auditor never audits an area they belong to (neither plans nor performs it).
-  if (user.areaId !== null) cannot(['create', 'START_FIELDWORK', 'FINISH_FIELDWORK'], 'Audit', { areaId: user.areaId });
-  // A supersede by the uploader is always allowed (granted below); a quality manager may supersede others'.
+  // Area independence: nobody plans, performs or moves on an audit of the area they belong to
+  // (checked against the person's area now, so moving into the area ends their part in it).
+  if (user.areaId !== null) {
+    cannot(['create', ...AUDIT_EVENTS], 'Audit', { areaId: user.areaId });
+    cannot(['create', 'update'], 'ChecklistRun', { areaId: user.areaId });
+    cannot('create', 'Finding', { areaId: user.areaId, auditLeadAuditorId: { $exists: true } });
+  }
+  // Nobody gives themself a signing role; another administrator must.
+  cannot('update', 'User', { id: user.id, grantsSigningRole: true });
+  // Evidence is frozen once its record is closed, verified or approved: a later change is a new record or event.
+  cannot(['create', 'supersede'], 'Evidence', { recordFrozen: true });
+  // A result a containment decision rests on changes through the finding's impact worksheet only.
+  cannot('update', 'Inspection', { hasContainmentDecision: true });
+}
+
+/**
+ * Timelines: every record's, except people's (sign-ins, lockouts), which only
+ * the person and administrators read. An evidence file's timeline also needs
+ * the right to read the file itself (checked on the loaded file by the route).
+ */
+function trailReadRules({ can }: Builder, user: AbilityUser) {
+  can('read', 'Trail', { recordType: { $ne: 'user' } });
+  can('read', 'Trail', { recordType: 'user', recordId: String(user.id) });
 }
 
 /**
@@ -186,6 +215,7 @@ export function defineAbilityFor(user: AbilityUser): AppAbility {
     technician: actionOwnerRules,
     admin: adminRules,
   };
+  trailReadRules(builder, user);
   for (const role of user.roles) roleRules[role](builder, user);
   segregationRules(builder, user);
   evidenceReadRules(builder, user);

@@ -1,21 +1,21 @@
 import passport, { type PassportStatic } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import type { Sequelize } from 'sequelize';
-import { checkCredentials } from './sign-in.service';
+import { checkCredentials, normaliseEmail, type SignInDeps } from './sign-in.service';
 import { loadActiveSessionUser } from '../services/user-loader';
 
 /** A passport instance of its own per app, so several apps (tests, two servers) never share strategies. */
-export function createPassport(sequelize: Sequelize, lockThreshold: number): PassportStatic {
+export function createPassport(deps: SignInDeps): PassportStatic {
   const instance = new passport.Passport() as PassportStatic;
   instance.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
-      checkCredentials(sequelize, { email, password, lockThreshold, purpose: 'sign-in' })
-        .then((result) => {
-          if (result.ok) done(null, { id: result.user.id });
-          else done(null, false, { message: result.reason });
-        })
-        .catch(done);
-    }),
+    new LocalStrategy(
+      { usernameField: 'email', passwordField: 'password', session: true, passReqToCallback: true },
+      (req, email, password, done) => {
+        // passport reads the raw body: the e-mail is trimmed and case-folded here too.
+        checkCredentials(deps, { email: normaliseEmail(email), password, address: req.ip ?? 'unknown' })
+          .then((result) => (result.ok ? done(null, { id: result.user.id }) : done(null, false)))
+          .catch(done);
+      },
+    ),
   );
   instance.serializeUser((user, done) => done(null, (user as { id: number }).id));
   instance.deserializeUser((id: number, done) => {

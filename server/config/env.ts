@@ -33,7 +33,9 @@ const EnvSchema = z.object({
   TRUST_PROXY: booleanFromEnv.default(false),
   SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGNIN_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Failed passwords in a row that lock an account for a while (1, 2, 4 … minutes, up to ACCOUNT_LOCK_MAX_MINUTES). */
   ACCOUNT_LOCK_THRESHOLD: z.coerce.number().int().min(1).default(10),
+  ACCOUNT_LOCK_MAX_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(60),
   SMTP_URL: z.string().optional(),
   MAIL_FROM: z.string().default('Whorl <whorl@localhost>'),
   UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(25 * 1024 * 1024),
@@ -70,7 +72,7 @@ export interface AppConfig {
   maxInFlightRequests: number;
   session: { secret: string; idleMinutes: number; absoluteHours: number; cookieSecure: boolean };
   trustProxy: boolean;
-  signIn: { rateLimit: number; rateWindowMinutes: number; lockThreshold: number };
+  signIn: { rateLimit: number; rateWindowMinutes: number; lockThreshold: number; maxLockMinutes: number };
   mail: { smtpUrl?: string; from: string };
   uploads: { maxBytes: number; maxFiles: number };
   storage: {
@@ -112,6 +114,7 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       rateLimit: env.SIGNIN_RATE_LIMIT,
       rateWindowMinutes: env.SIGNIN_RATE_WINDOW_MINUTES,
       lockThreshold: env.ACCOUNT_LOCK_THRESHOLD,
+      maxLockMinutes: env.ACCOUNT_LOCK_MAX_MINUTES,
     },
     mail: { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM },
     uploads: { maxBytes: env.UPLOAD_MAX_BYTES, maxFiles: env.UPLOAD_MAX_FILES },

@@ -35,23 +35,29 @@ export async function collectAllPages<T, Q extends { page: number; pageSize: num
   }
 }
 
-// A cell a spreadsheet would run as a formula (=, +, @, or - not starting a number)
-// gets a leading apostrophe, the usual guard against CSV formula injection.
-const FORMULA_START = /^(?:[=+@\t\r]|-(?![\d.]))/;
+// CSV injection (OWASP guidance): a cell that begins with =, +, -, @, tab or CR
+// is run as a formula by spreadsheet tools, so it gets a leading apostrophe,
+// unless the whole cell is a plain number ("-12.5" stays a number).
+const FORMULA_START = /^[=+\-@\t\r]/;
+const PLAIN_NUMBER = /^[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?$/;
 
-function cell(value: string | number | boolean | null | undefined): string | number | boolean {
+export function csvCell(value: string | number | boolean | null | undefined): string | number | boolean {
   if (value === null || value === undefined) return '';
-  if (typeof value === 'string' && FORMULA_START.test(value)) return `'${value}`;
+  if (typeof value === 'string' && FORMULA_START.test(value) && !PLAIN_NUMBER.test(value)) return `'${value}`;
   return value;
 }
 
 export function toCsv<T>(columns: CsvColumn<T>[], rows: T[]): string {
-  const records = rows.map((row) => columns.map((column) => cell(column.value(row))));
+  const records = rows.map((row) => columns.map((column) => csvCell(column.value(row))));
+  // Every field quoted: an embedded CR or LF (even a bare LF, which CRLF records
+  // would otherwise leave unquoted) stays inside its cell.
   return stringify(records, {
     header: true,
     columns: columns.map((column) => column.header),
     bom: true,
     record_delimiter: 'windows',
+    quoted: true,
+    quoted_empty: true,
     cast: { boolean: (value) => (value ? 'yes' : 'no') },
   });
 }

@@ -2,8 +2,13 @@ import type { Request } from 'express';
 import type { z } from 'zod';
 import { AppError } from './app-error';
 import { zodIssuesToDetails } from '../middlewares/error-handler';
+import { illFormedTextError } from '../middlewares/text-input';
+import { findIllFormedText } from '../../shared/schemas/common';
 
 function parseWith<S extends z.ZodType>(schema: S, value: unknown, where: string): z.infer<S> {
+  // Multipart fields and query values do not pass the JSON body check in app.ts.
+  const broken = findIllFormedText(value);
+  if (broken) throw illFormedTextError(broken);
   const result = schema.safeParse(value);
   if (!result.success) {
     throw new AppError(`Some ${where} fields are not valid`, {

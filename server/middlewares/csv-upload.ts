@@ -4,6 +4,7 @@
 import multer from 'multer';
 import type { RequestHandler } from 'express';
 import { AppError } from '../lib/app-error';
+import { markMultipart, multipartParseError } from './multipart-errors';
 
 const sizeText = (bytes: number) => (bytes >= 1024 * 1024 ? `${Math.round((bytes / (1024 * 1024)) * 10) / 10} MB` : `${Math.ceil(bytes / 1024)} KB`);
 
@@ -14,7 +15,7 @@ export function createCsvUpload({ maxBytes, maxRowsHint }: { maxBytes: number; m
     limits: { fileSize: maxBytes, files: 1, fields: 0, fieldSize: 0, fieldNameSize: 32, parts: 1, headerPairs: 20, fieldNestingDepth: 0, fieldArrayIndexLimit: 0 },
   }).single('file');
 
-  return (req, res, next) => {
+  return markMultipart((req, res, next) => {
     if (!req.is('multipart/form-data')) {
       return next(new AppError('Send the CSV file as multipart/form-data in a field named “file”', { status: 415, code: 'unsupported_media_type' }));
     }
@@ -40,7 +41,7 @@ export function createCsvUpload({ maxBytes, maxRowsHint }: { maxBytes: number; m
         }
         return next(new AppError(`The upload form is not valid (${error.code}).`, { status: 400, code: 'invalid_input' }));
       }
-      next(error);
+      next(multipartParseError(error) ?? error);
     });
-  };
+  });
 }

@@ -5,6 +5,7 @@ import multer from 'multer';
 import type { RequestHandler } from 'express';
 import type { AppConfig } from '../config/env';
 import { AppError } from '../lib/app-error';
+import { markMultipart, multipartParseError } from './multipart-errors';
 import { createHashingDiskEngine } from '../storage/hashing-disk-engine';
 import { uploadTempDir } from '../storage';
 
@@ -31,7 +32,7 @@ export function createEvidenceUpload(config: AppConfig): RequestHandler {
     },
   }).array('file', maxFiles);
 
-  return (req, res, next) => {
+  return markMultipart((req, res, next) => {
     if (!req.is('multipart/form-data')) {
       return next(new AppError('Send the file as multipart/form-data in a field named “file”', { status: 415, code: 'unsupported_media_type' }));
     }
@@ -53,7 +54,7 @@ export function createEvidenceUpload(config: AppConfig): RequestHandler {
             return next(new AppError(`The upload form is not valid (${error.code}).`, { status: 400, code: 'invalid_input' }));
         }
       }
-      next(error);
+      next(multipartParseError(error) ?? error);
     });
-  };
+  });
 }

@@ -28,28 +28,27 @@ const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 /**
  * The second half of CSRF protection: a state-changing request that says where
- * it came from must come from this origin. Browsers send Origin on every
- * cross-site POST; Sec-Fetch-Site tells the same for modern browsers.
+ * it came from must come from this application's public address (PUBLIC_URL),
+ * never merely from whatever Host header the client sent. Browsers send Origin
+ * on every cross-site POST; Sec-Fetch-Site tells the same for modern browsers.
+ * publicUrl is read per request: with PORT=0 it is known only once listening.
  */
-export const requireSameOrigin: RequestHandler = (req, _res, next) => {
-  if (SAFE_METHODS.has(req.method)) return next();
-  const fetchSite = req.get('sec-fetch-site');
-  if (fetchSite && fetchSite !== 'same-origin' && fetchSite !== 'none') {
-    return next(new AppError('Cross-site requests are refused', { status: 403, code: 'cross_origin' }));
-  }
-  const origin = req.get('origin');
-  if (origin && origin !== 'null') {
-    let originHost: string;
+export function createSameOriginCheck(publicUrl: () => string): RequestHandler {
+  return (req, _res, next) => {
+    if (SAFE_METHODS.has(req.method)) return next();
+    const refused = (message = 'Cross-site requests are refused') => next(new AppError(message, { status: 403, code: 'cross_origin' }));
+    const fetchSite = req.get('sec-fetch-site');
+    if (fetchSite && fetchSite !== 'same-origin' && fetchSite !== 'none') return refused();
+    const origin = req.get('origin');
+    if (origin === undefined) return next();
+    if (origin === 'null') return refused();
+    let sent: string;
     try {
-      originHost = new URL(origin).host;
+      sent = new URL(origin).origin;
     } catch {
-      return next(new AppError('Malformed Origin header', { status: 403, code: 'cross_origin' }));
+      return refused('Malformed Origin header');
     }
-    if (originHost !== req.get('host')) {
-      return next(new AppError('Cross-site requests are refused', { status: 403, code: 'cross_origin' }));
-    }
-  } else if (origin === 'null') {
-    return next(new AppError('Cross-site requests are refused', { status: 403, code: 'cross_origin' }));
-  }
-  next();
-};
+    if (sent !== new URL(publicUrl()).origin) return refused();
+    next();
+  };
+}

@@ -5,6 +5,7 @@ import type { Sequelize } from 'sequelize';
 import type { AppConfig } from '../config/env';
 import { defineAbilityFor } from '../../shared/abilities';
 import type { SessionUser } from '../../shared/types/session';
+import { AppError } from '../lib/app-error';
 
 const SequelizeStore = connectSessionSequelize(session.Store);
 
@@ -71,4 +72,15 @@ export const attachAbility: RequestHandler = (req, res, next) => {
     res.locals.ability = defineAbilityFor(user);
   }
   next();
+};
+
+/**
+ * After an administrator set a person's password, that person may only read
+ * their session, sign out, or choose a password of their own: the
+ * administrator knows the one they set.
+ */
+export const requireOwnPassword: RequestHandler = (req, res, next) => {
+  const user = res.locals.user as SessionUser | undefined;
+  if (!user?.passwordChangeRequired || req.path === '/session' || req.path === '/session/password') return next();
+  next(new AppError('Choose a new password first: an administrator set the one you signed in with', { status: 403, code: 'password_change_required' }));
 };

@@ -19,7 +19,14 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare areaId: number | null;
   declare active: CreationOptional<boolean>;
   declare failedSignIns: CreationOptional<number>;
-  declare lockedAt: Date | null;
+  /** Left from permanent locks; no longer set (see lockedUntil). */
+  declare lockedAt: CreationOptional<Date | null>;
+  /** A temporary lock after failed passwords: sign-in is refused until then. */
+  declare lockedUntil: CreationOptional<Date | null>;
+  /** Locks in a row without a successful sign-in: each lock lasts twice as long as the one before. */
+  declare lockouts: CreationOptional<number>;
+  /** Set when an administrator chose this person's password: they choose their own at next sign-in. */
+  declare passwordChangeRequired: CreationOptional<boolean>;
   declare mailDigest: CreationOptional<boolean>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -44,6 +51,9 @@ export function initUser(sequelize: Sequelize) {
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       failedSignIns: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       lockedAt: { type: DataTypes.DATE(3), allowNull: true },
+      lockedUntil: { type: DataTypes.DATE(3), allowNull: true },
+      lockouts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      passwordChangeRequired: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       mailDigest: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE(3),

@@ -19,6 +19,8 @@ export function techniqueSubject(technique: Technique, revision: TechniqueRevisi
     state: revision.state,
     revisionId: revision.id,
     createdById: revision.createdById,
+    // The last editor is an author too: neither approves the revision (shared/abilities.ts).
+    updatedById: revision.updatedById,
   });
 }
 

@@ -1,8 +1,14 @@
 import type { User } from '../models';
 import type { UserView } from '../../shared/schemas/user';
 
-export function presentUser(user: User): UserView {
-  return {
+/** Who reads: lock state and a pending password change are for administrators only. */
+export interface UserAudience {
+  administrator: boolean;
+  now: Date;
+}
+
+export function presentUser(user: User, audience: UserAudience = { administrator: false, now: new Date() }): UserView {
+  const view: UserView = {
     id: user.id,
     email: user.email,
     displayName: user.displayName,
@@ -10,8 +16,10 @@ export function presentUser(user: User): UserView {
     areaId: user.areaId,
     areaName: user.area?.name ?? null,
     active: user.active,
-    locked: Boolean(user.lockedAt),
     mailDigest: user.mailDigest,
     version: user.version,
   };
+  if (!audience.administrator) return view;
+  const locked = Boolean(user.lockedUntil && user.lockedUntil.getTime() > audience.now.getTime());
+  return { ...view, locked, lockedUntil: locked ? user.lockedUntil!.toISOString() : null, passwordChangeRequired: user.passwordChangeRequired };
 }

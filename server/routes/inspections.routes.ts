@@ -17,6 +17,7 @@ import { importInspections, previewInspectionImport } from '../services/inspecti
 import { createCsvUpload } from '../middlewares/csv-upload';
 import { collectAllPages, sendCsv, type CsvColumn } from '../lib/csv';
 import type { AppDeps } from '../app-deps';
+import { safeFileName } from '../services/evidence-content';
 
 export const INSPECTION_CSV_COLUMNS: CsvColumn<InspectionView>[] = [
   { header: 'Date', value: (i) => i.performedOn },
@@ -63,7 +64,7 @@ export function inspectionRoutes(deps: AppDeps): Router {
 
   router.post('/inspections', requires.can('create', 'Inspection'), async (req, res) => {
     const input = parseBody(InspectionFieldsSchema, req);
-    res.status(201).json(await createInspection(deps, res.locals.user!.id, input));
+    res.status(201).json(await createInspection(deps, res.locals.ability!, res.locals.user!.id, input));
   });
 
   router.patch('/inspections/:id', requires.can('update', 'Inspection'), async (req, res) => {
@@ -74,14 +75,14 @@ export function inspectionRoutes(deps: AppDeps): Router {
 
   router.post('/inspections/import/preview', requires.can('create', 'Inspection'), upload, async (req, res) => {
     parseBody(NoFieldsSchema, req);
-    res.json(await previewInspectionImport(deps, req.file!.buffer));
+    res.json(await previewInspectionImport(deps, res.locals.ability!, req.file!.buffer));
   });
 
   router.post('/inspections/import', requires.can('create', 'Inspection'), upload, async (req, res) => {
     parseBody(NoFieldsSchema, req);
-    // The file's name goes on each row's trail entry: bounded, as the client chose it.
-    const fileName = (req.file!.originalname || 'upload.csv').slice(0, 200);
-    res.status(201).json(await importInspections(deps, res.locals.user!.id, req.file!.buffer, fileName));
+    // The file's name goes on each row's trail entry: bounded and cleaned like an evidence file's name.
+    const fileName = safeFileName(req.file!.originalname || 'upload.csv');
+    res.status(201).json(await importInspections(deps, { actorId: res.locals.user!.id, ability: res.locals.ability! }, req.file!.buffer, fileName));
   });
 
   return router;

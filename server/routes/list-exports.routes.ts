@@ -22,8 +22,9 @@ const USER_COLUMNS: CsvColumn<UserView>[] = [
   { header: 'Roles', value: (u) => u.roles.map((role) => ROLE_LABELS[role as Role] ?? role).join('; ') },
   { header: 'Area', value: (u) => u.areaName },
   { header: 'Active', value: (u) => u.active },
-  { header: 'Locked', value: (u) => u.locked },
 ];
+/** Administrators also see whether sign-in is locked, and until when. */
+const USER_ADMIN_COLUMNS: CsvColumn<UserView>[] = [...USER_COLUMNS, { header: 'Sign-in locked until', value: (u) => u.lockedUntil ?? '' }];
 
 const TECHNIQUE_COLUMNS: CsvColumn<TechniqueListItem>[] = [
   { header: 'Code', value: (t) => t.code },
@@ -87,8 +88,9 @@ export function listExportRoutes(deps: AppDeps): Router {
   const now = () => deps.clock.now();
 
   router.get('/users.csv', requires.can('read', 'User'), async (req, res) => {
-    const rows = await collectAllPages(listUsers, parseQuery(UserListQuerySchema, req));
-    sendCsv(res, 'people', USER_COLUMNS, rows, now());
+    const administrator = res.locals.ability!.can('unlock', 'User');
+    const rows = await collectAllPages((query) => listUsers(query, { administrator, now: now() }), parseQuery(UserListQuerySchema, req));
+    sendCsv(res, 'people', administrator ? USER_ADMIN_COLUMNS : USER_COLUMNS, rows, now());
   });
 
   router.get('/techniques.csv', requires.can('read', 'Technique'), async (req, res) => {

@@ -5,14 +5,16 @@ import { TrailQuerySchema, type TrailEntryView, type TrailVerificationView } fro
 import { TrailEntry, User } from '../models';
 import { verifyTrail } from '../services/trail.service';
 import type { AppDeps } from '../app-deps';
+import { assertMayReadTrail } from '../services/trail-read-access';
 
 export function trailRoutes({ sequelize }: AppDeps): Router {
   const router = Router();
 
-  // A record's timeline: readable by everyone who may read the record (all signed-in users).
-  router.get('/trail', requires.signedIn('every signed-in user may read a record and its timeline'), async (req, res) => {
+  // A record's timeline, for whoever may read the record (people's and evidence timelines are narrower).
+  router.get('/trail', requires.can('read', 'Trail'), async (req, res) => {
     const { record, limit } = parseQuery(TrailQuerySchema, req);
     const [recordType, recordId] = record.split(':');
+    await assertMayReadTrail(sequelize, res.locals.ability!, recordType, recordId);
     const entries = await TrailEntry.findAll({ where: { recordType, recordId }, order: [['seq', 'ASC']], limit });
     const userIds = [...new Set(entries.map((entry) => entry.userId).filter((id): id is number => id !== null))];
     const users = userIds.length ? await User.findAll({ where: { id: userIds }, attributes: ['id', 'displayName'] }) : [];

@@ -226,7 +226,7 @@ export async function updateChecklistNotes(
     const run = await ChecklistRun.findOne({ where: { id: runId, auditId }, transaction, lock: transaction.LOCK.UPDATE });
     if (!run) throw notFound('Checklist run');
     const audit = (await Audit.findByPk(auditId, { transaction }))!;
-    if (!ability.can('update', subject('ChecklistRun', { leadAuditorId: audit.leadAuditorId, auditState: 'fieldwork' }))) {
+    if (!ability.can('update', subject('ChecklistRun', { leadAuditorId: audit.leadAuditorId, auditState: 'fieldwork', areaId: audit.areaId }))) {
       throw forbidden('Only the audit’s lead auditor writes notes on its checklist');
     }
     if (audit.state !== 'fieldwork') throw notAllowedNow(`Checklist notes can change during fieldwork only; this audit is ${audit.state}`);

@@ -58,17 +58,27 @@ export async function detectEvidenceType(filePath: string, fileName: string, siz
   return textType;
 }
 
+/** U+200E/U+200F marks, U+202A–U+202E embeddings and overrides, U+2066–U+2069 isolates. */
+export const BIDI_CONTROLS = /[\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+
 /**
  * A file name safe to store and to send back: no folders (“../../x.pdf” → “x.pdf”),
- * no control characters, at most 200 characters, never empty.
+ * no control characters, no bidirectional controls (a right-to-left override
+ * makes “invoice_fdp.exe” read as “invoice_exe.pdf”), at most 200 characters,
+ * never empty.
  */
 export function safeFileName(original: string | undefined): string {
   const base = (original ?? '').split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
-  let name = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_').replace(/^[.\s]+/, '').trim();
+  let name = base
+    .replace(BIDI_CONTROLS, '')
+    .replace(/[\u0000-\u001f\u007f"<>|:*?]/g, '_')
+    .replace(/^[.\s]+/, '')
+    .trim();
   if (name.length > 200) {
     const extension = path.extname(name).slice(0, 16);
     name = name.slice(0, 200 - extension.length) + extension;
   }
-  return name || 'evidence';
+  // Cutting at 200 may split a surrogate pair; never store half a character.
+  return (name as string & { toWellFormed(): string }).toWellFormed() || 'evidence';
 }

@@ -15,6 +15,8 @@ export interface EvidenceOwnerRecord {
   label: string;
   /** The client path of the record page, for links. */
   path: string;
+  /** Closed, verified or approved: its evidence can no longer be added to or superseded. */
+  frozen?: boolean;
 }
 
 type OwnerLoader = (sequelize: Sequelize, id: number, transaction?: Transaction) => Promise<EvidenceOwnerRecord | null>;
@@ -22,7 +24,7 @@ type OwnerLoader = (sequelize: Sequelize, id: number, transaction?: Transaction)
 function sqlLoader(
   recordType: EvidenceRecordType,
   sql: string,
-  describe: (row: Record<string, unknown>, id: number) => { recordOwnerId: number | null; label: string; path: string },
+  describe: (row: Record<string, unknown>, id: number) => { recordOwnerId: number | null; label: string; path: string; frozen?: boolean },
 ): OwnerLoader {
   return async (sequelize, id, transaction) => {
     const [row] = await sequelize.query<Record<string, unknown>>(sql, { replacements: [id], type: QueryTypes.SELECT, transaction });
@@ -31,17 +33,18 @@ function sqlLoader(
 }
 
 const loaders = new Map<EvidenceRecordType, OwnerLoader>([
-  ['action', sqlLoader('action', 'SELECT owner_id, number FROM corrective_actions WHERE id = ?', (row, id) => ({
-    recordOwnerId: Number(row.owner_id), label: String(row.number), path: `/actions/${id}`,
+  ['action', sqlLoader('action', 'SELECT owner_id, number, state FROM corrective_actions WHERE id = ?', (row, id) => ({
+    recordOwnerId: Number(row.owner_id), label: String(row.number), path: `/actions/${id}`, frozen: row.state === 'verified',
   }))],
-  ['finding', sqlLoader('finding', 'SELECT author_id, number FROM findings WHERE id = ?', (row, id) => ({
-    recordOwnerId: Number(row.author_id), label: String(row.number), path: `/findings/${id}`,
+  ['finding', sqlLoader('finding', 'SELECT author_id, number, state FROM findings WHERE id = ?', (row, id) => ({
+    recordOwnerId: Number(row.author_id), label: String(row.number), path: `/findings/${id}`, frozen: row.state === 'closed' || row.state === 'withdrawn',
   }))],
-  ['audit', sqlLoader('audit', 'SELECT lead_auditor_id, title FROM audits WHERE id = ?', (row, id) => ({
-    recordOwnerId: Number(row.lead_auditor_id), label: String(row.title), path: `/audits/${id}`,
+  ['audit', sqlLoader('audit', 'SELECT lead_auditor_id, title, state FROM audits WHERE id = ?', (row, id) => ({
+    recordOwnerId: Number(row.lead_auditor_id), label: String(row.title), path: `/audits/${id}`, frozen: row.state === 'closed' || row.state === 'cancelled',
   }))],
-  ['technique', sqlLoader('technique', 'SELECT created_by_id, code FROM techniques WHERE id = ?', (row, id) => ({
-    recordOwnerId: Number(row.created_by_id), label: String(row.code), path: `/techniques/${id}`,
+  // A technique's evidence belongs to its open draft; with none open (every revision approved) it is frozen until a new revision starts.
+  ['technique', sqlLoader('technique', "SELECT created_by_id, code, EXISTS (SELECT 1 FROM technique_revisions r WHERE r.technique_id = t.id AND r.state = 'draft') AS has_draft FROM techniques t WHERE t.id = ?", (row, id) => ({
+    recordOwnerId: Number(row.created_by_id), label: String(row.code), path: `/techniques/${id}`, frozen: Number(row.has_draft) === 0,
   }))],
   ['certification', sqlLoader('certification', 'SELECT user_id, certificate_number FROM certifications WHERE id = ?', (row) => ({
     recordOwnerId: Number(row.user_id), label: `Certificate ${String(row.certificate_number)}`, path: '/registers',
@@ -82,5 +85,5 @@ export async function loadEvidenceOwner(
 
 /** The fields the Evidence role rules look at (shared/abilities.ts). */
 export function evidenceSubjectFields(owner: EvidenceOwnerRecord, uploadedById?: number) {
-  return { recordType: owner.recordType, recordId: owner.recordId, recordOwnerId: owner.recordOwnerId, uploadedById };
+  return { recordType: owner.recordType, recordId: owner.recordId, recordOwnerId: owner.recordOwnerId, uploadedById, recordFrozen: owner.frozen === true };
 }

@@ -43,6 +43,14 @@ export async function countEvidence(recordType: EvidenceRecordType, recordId: nu
   return EvidenceFile.count({ where: { recordType, recordId, ...CURRENT_EVIDENCE }, transaction });
 }
 
+/** Evidence of a closed, verified or approved record no longer changes (also a rule in shared/abilities.ts). */
+function refuseFrozen(owner: EvidenceOwnerRecord, verb: string) {
+  if (!owner.frozen) return;
+  throw notAllowedNow(
+    `${owner.label} is closed, verified or approved: its evidence is frozen and cannot be ${verb}. Record what changed as a new record or event (a new finding, a new technique revision).`,
+  );
+}
+
 function ownerSubject(owner: EvidenceOwnerRecord, uploadedById?: number) {
   return subject('Evidence', evidenceSubjectFields(owner, uploadedById));
 }
@@ -60,6 +68,7 @@ export async function addEvidence(deps: AppDeps, actor: Actor, input: EvidenceOw
   }
   const ids = await sequelize.transaction(async (transaction) => {
     const owner = await loadEvidenceOwner(sequelize, input.recordType, input.recordId, transaction);
+    refuseFrozen(owner, 'added to');
     ForbiddenError.from(actor.ability)
       .setMessage(`You may not add evidence to this ${input.recordType}`)
       .throwUnlessCan('create', ownerSubject(owner));
@@ -197,6 +206,7 @@ export async function supersedeEvidence(deps: AppDeps, actor: Actor, id: number,
     const file = await EvidenceFile.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!file) throw notFound('Evidence file');
     const owner = await loadEvidenceOwner(sequelize, file.recordType, file.recordId, transaction);
+    refuseFrozen(owner, 'superseded');
     ForbiddenError.from(actor.ability)
       .setMessage('Only the uploader or a quality manager may mark this file superseded')
       .throwUnlessCan('supersede', ownerSubject(owner, file.uploadedById));

@@ -10,6 +10,8 @@ import { Equipment, Inspection, Technique, TechniqueRevision, User } from '../mo
 import { AppError } from '../lib/app-error';
 import { appendTrailBatch } from './trail-batch';
 import { inspectionRuleErrors, loadInspectionFacts } from './inspection-rules';
+import { subject } from '@casl/ability';
+import type { AppAbility } from '../../shared/abilities';
 import {
   INSPECTION_IMPORT_COLUMNS,
   INSPECTION_IMPORT_MAX_ROWS,
@@ -166,7 +168,7 @@ interface CheckedFile {
   alreadyInRegister: { row: number; existing: Inspection }[];
 }
 
-async function checkFile(deps: AppDeps, buffer: Buffer, transaction?: Transaction): Promise<CheckedFile> {
+async function checkFile(deps: AppDeps, ability: AppAbility, buffer: Buffer, transaction?: Transaction): Promise<CheckedFile> {
   const parsed = parseFile(buffer);
   if (!('records' in parsed)) return { preview: parsed, inputs: [], alreadyInRegister: [] };
   const errors = [...parsed.errors];
@@ -243,6 +245,10 @@ async function checkFile(deps: AppDeps, buffer: Buffer, transaction?: Transactio
       ...equipment,
       notes: cells.notes || null,
     });
+    // Rows name the importer as inspector, unless a quality role imports for others (shared/abilities.ts).
+    if (user && !ability.can('create', subject('Inspection', { inspectorId: user.id }))) {
+      fail('inspector e-mail', 'you import only inspections you performed; a quality manager imports them for other inspectors');
+    }
     const reported = new Set(rowErrors.map((error) => error.field));
     // Stand-in ids for what did not resolve are already reported under their own column.
     if (!revision) reported.add('revision');
@@ -361,14 +367,19 @@ function equipmentWarnings(candidates: { row: number; input: InspectionInput }[]
   return warnings;
 }
 
-export async function previewInspectionImport(deps: AppDeps, buffer: Buffer): Promise<InspectionImportPreview> {
-  return (await checkFile(deps, buffer)).preview;
+export async function previewInspectionImport(deps: AppDeps, ability: AppAbility, buffer: Buffer): Promise<InspectionImportPreview> {
+  return (await checkFile(deps, ability, buffer)).preview;
 }
 
 /** Writes the whole file or nothing: checked again inside the transaction that writes it. */
-export async function importInspections(deps: AppDeps, actorId: number, buffer: Buffer, fileName: string): Promise<InspectionImportResult> {
+export async function importInspections(
+  deps: AppDeps,
+  { actorId, ability }: { actorId: number; ability: AppAbility },
+  buffer: Buffer,
+  fileName: string,
+): Promise<InspectionImportResult> {
   return deps.sequelize.transaction(async (transaction) => {
-    const checked = await checkFile(deps, buffer, transaction);
+    const checked = await checkFile(deps, ability, buffer, transaction);
     const { preview, inputs } = checked;
     const repeated = await alreadyImported(checked, transaction);
     if (repeated) throw repeated;

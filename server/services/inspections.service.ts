@@ -4,7 +4,7 @@ import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { ForbiddenError, subject } from '@casl/ability';
 import type { AppDeps } from '../app-deps';
 import type { AppAbility } from '../../shared/abilities';
-import { Equipment, Inspection, Technique, TechniqueRevision, User } from '../models';
+import { ContainmentDecision, Equipment, Finding, Inspection, Technique, TechniqueRevision, User } from '../models';
 import { appendTrail } from './trail.service';
 import { inspectionIncludes, presentInspection } from '../presenters/inspection.presenter';
 import { AppError, notFound, staleVersion } from '../lib/app-error';
@@ -82,7 +82,15 @@ export async function assertInspectionValid(
   return facts;
 }
 
-export async function createInspection(deps: AppDeps, actorId: number, input: InspectionInput): Promise<InspectionView> {
+/** Whoever records an inspection names themself as its inspector, unless a quality role records it for someone else. */
+function assertMayName(ability: AppAbility, inspectorId: number) {
+  ForbiddenError.from(ability)
+    .setMessage('Record the inspections you performed yourself: only a quality manager records one for another inspector')
+    .throwUnlessCan('create', subject('Inspection', { inspectorId }));
+}
+
+export async function createInspection(deps: AppDeps, ability: AppAbility, actorId: number, input: InspectionInput): Promise<InspectionView> {
+  assertMayName(ability, input.inspectorId);
   return deps.sequelize.transaction(async (transaction) => {
     const facts = await assertInspectionValid(deps, input, transaction);
     const techniqueId = facts.revisions.get(input.techniqueRevisionId)!.techniqueId;
@@ -103,8 +111,18 @@ export async function updateInspection(deps: AppDeps, ability: AppAbility, actor
   return deps.sequelize.transaction(async (transaction) => {
     const row = await Inspection.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
     if (!row) throw notFound('Inspection');
+    // A result a finding's containment decision rests on changes through that finding's impact worksheet only.
+    const decision = await ContainmentDecision.findOne({ where: { inspectionId: id }, attributes: ['findingId'], transaction });
+    if (decision) {
+      const finding = await Finding.findByPk(decision.findingId, { attributes: ['number'], transaction });
+      throw new AppError(
+        `This inspection has a containment decision on finding ${finding?.number ?? decision.findingId}; correct it through that finding’s impact worksheet, where the decision is reviewed with it`,
+        { status: 409, code: 'decided_in_worksheet' },
+      );
+    }
     // A technician corrects only the rows they recorded (shared/abilities.ts).
-    ForbiddenError.from(ability).throwUnlessCan('update', subject('Inspection', row.get({ plain: true })));
+    ForbiddenError.from(ability).throwUnlessCan('update', subject('Inspection', { ...row.get({ plain: true }), hasContainmentDecision: false }));
+    if (input.inspectorId !== row.inspectorId) assertMayName(ability, input.inspectorId);
     if (row.version !== input.version) throw staleVersion();
     const { version: _version, ...fields } = input;
     const facts = await assertInspectionValid(deps, fields, transaction, { recordedInspectorId: row.inspectorId });

@@ -24,7 +24,7 @@ import type { Role } from '../../shared/roles';
 import { AppError, forbidden, notAllowedNow, notFound, staleVersion } from '../lib/app-error';
 import { CorrectiveAction, User } from '../models';
 import { verifyPassword } from '../auth/passwords';
-import { registerFailure } from '../auth/sign-in.service';
+import { accountLockPolicy, registerFailure } from '../auth/sign-in.service';
 import { appendTrail, recordTrail } from './trail.service';
 import { recordSignature } from './signatures.service';
 import { writeTrailAnchor } from './trail-anchors';
@@ -265,7 +265,7 @@ export async function applyRecordEvent(
     }));
   } catch (error) {
     if (error instanceof SigningPasswordRefused) {
-      await registerFailure(sequelize, actor.id, deps.config.signIn.lockThreshold, 'signature');
+      await registerFailure(sequelize, actor.id, accountLockPolicy(deps.config), 'signature', deps.clock.now());
       await recordTrail(sequelize, {
         userId: actor.id,
         recordType: TRAIL_TYPES[kind],

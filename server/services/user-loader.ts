@@ -14,12 +14,17 @@ export function toSessionUser(user: User): SessionUser {
     roles: user.roles,
     areaId: user.areaId,
     areaName: user.area?.name ?? null,
+    passwordChangeRequired: user.passwordChangeRequired,
   };
 }
 
-/** The signed-in person, or null when the account is gone, deactivated or locked. */
+/**
+ * The signed-in person, or null when the account is gone or deactivated. A
+ * temporary sign-in lock (failed passwords, perhaps someone else's) leaves
+ * sessions already open alone: it only refuses new sign-ins.
+ */
 export async function loadActiveSessionUser(id: number): Promise<SessionUser | null> {
   const user = await User.findByPk(id, { include: userIncludes });
-  if (!user || !user.active || user.lockedAt) return null;
+  if (!user || !user.active) return null;
   return toSessionUser(user);
 }

@@ -1,6 +1,6 @@
 // Inspections performed with a technique revision: the register's input and views.
 import { z } from 'zod';
-import { IsoDateSchema, ListQueryBaseSchema } from './common';
+import { IsoDateSchema, ListQueryBaseSchema, isWellFormedText, ILL_FORMED_TEXT_MESSAGE } from './common';
 
 export const INSPECTION_RESULTS = ['accept', 'reject', 'indication_recorded'] as const;
 export type InspectionResult = (typeof INSPECTION_RESULTS)[number];
@@ -11,7 +11,8 @@ export const INSPECTION_RESULT_LABELS: Record<InspectionResult, string> = {
 };
 
 const text = (label: string, max: number) =>
-  z.string({ error: `${label} is required` }).trim().min(1, `enter the ${label}`).max(max, `${label} is at most ${max} characters`);
+  z.string({ error: `${label} is required` }).trim().min(1, `enter the ${label}`).max(max, `${label} is at most ${max} characters`)
+    .refine(isWellFormedText, ILL_FORMED_TEXT_MESSAGE);
 const equipmentRef = z.number().int().positive().nullable().default(null);
 
 export const InspectionFieldsSchema = z

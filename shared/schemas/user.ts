@@ -8,6 +8,19 @@ export const PasswordSchema = z
   .min(12, 'use at least 12 characters')
   .max(128, 'use at most 128 characters');
 
+/** A person choosing their own password: the one they have, and the new one. */
+export const PasswordChangeSchema = z
+  .object({
+    currentPassword: z.string().min(1, 'enter the password you signed in with').max(1024),
+    newPassword: PasswordSchema,
+  })
+  .strict();
+
+export type PasswordChangeInput = z.infer<typeof PasswordChangeSchema>;
+
+/** Roles that sign records (closure, verification): nobody grants them to themself. */
+export const SIGNING_ROLES = ['quality_manager', 'accountable_manager'] as const;
+
 const RolesSchema = z.array(z.enum(ROLES)).min(1, 'give the user at least one role').max(ROLES.length);
 
 export const UserCreateSchema = z
@@ -48,7 +61,11 @@ export interface UserView {
   areaId: number | null;
   areaName: string | null;
   active: boolean;
-  locked: boolean;
+  /** Shown to administrators only: a temporary lock after failed passwords, and until when. */
+  locked?: boolean;
+  lockedUntil?: string | null;
+  /** Shown to administrators only: the person must choose a new password at next sign-in. */
+  passwordChangeRequired?: boolean;
   mailDigest: boolean;
   version: number;
 }

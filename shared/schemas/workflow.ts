@@ -3,10 +3,11 @@
 // types its forms and pages with the same definitions.
 import { z } from 'zod';
 import { FINDING_CLASSES, ROOT_CAUSE_METHODS } from '../../machines';
-import { ListQueryBaseSchema } from './common';
+import { ListQueryBaseSchema, isWellFormedText, ILL_FORMED_TEXT_MESSAGE } from './common';
 
 const text = (label: string, max = 4000) =>
-  z.string({ error: `${label} is required` }).trim().min(1, `${label} is required`).max(max, `${label} is at most ${max} characters`);
+  z.string({ error: `${label} is required` }).trim().min(1, `${label} is required`).max(max, `${label} is at most ${max} characters`)
+    .refine(isWellFormedText, ILL_FORMED_TEXT_MESSAGE);
 /** A calendar date that exists (2026-02-30 does not), written YYYY-MM-DD. */
 const IsoDateSchema = z.iso.date({ error: 'use a real calendar date like 2026-12-31' });
 const version = z.number({ error: 'version is required (the version you loaded)' }).int().min(0);

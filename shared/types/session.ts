@@ -8,6 +8,8 @@ export interface SessionUser {
   roles: Role[];
   areaId: number | null;
   areaName: string | null;
+  /** An administrator set this person's password: until they choose their own, nothing else is open to them. */
+  passwordChangeRequired?: boolean;
 }
 
 export interface SessionResponse {

@@ -81,16 +81,21 @@ describe('technique editor', () => {
 
     await page.getByRole('button', { name: 'Save draft' }).click();
     await page.getByRole('button', { name: 'Saved' }).waitFor();
+    // Its author may not approve it: no Approve button for her.
+    expect(await page.getByRole('button', { name: 'Approve revision A' }).count()).toBe(0);
+    await page.context().close();
 
-    await page.getByRole('button', { name: 'Approve revision A' }).click();
-    const dialog = page.getByRole('dialog');
+    const reviewer = await signedInPage('level3b@tarnbrook.example');
+    await reviewer.goto(techniqueUrl);
+    await reviewer.getByRole('button', { name: 'Approve revision A' }).click();
+    const dialog = reviewer.getByRole('dialog');
     await dialog.getByText('read-only').waitFor();
     await dialog.getByRole('button', { name: 'Approve revision A' }).click();
-    await page.waitForURL(techniqueUrl);
-    await page.getByText('approved by Sunniva Brack').waitFor();
-    expect(await page.getByRole('link', { name: /Edit draft/ }).count()).toBe(0);
-    expect(await page.getByRole('button', { name: 'Start a new revision' }).count()).toBe(1);
-    await page.context().close();
+    await reviewer.waitForURL(techniqueUrl);
+    await reviewer.getByText('approved by Orla Dunmore').waitFor();
+    expect(await reviewer.getByRole('link', { name: /Edit draft/ }).count()).toBe(0);
+    expect(await reviewer.getByRole('button', { name: 'Start a new revision' }).count()).toBe(1);
+    await reviewer.context().close();
 
     const auditor = await signedInPage('auditor@tarnbrook.example');
     await auditor.goto(techniqueUrl);

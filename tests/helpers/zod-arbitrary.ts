@@ -12,7 +12,21 @@ const unusualString = fc.oneof(
   fc.string({ maxLength: 40 }),
   fc.string({ unit: 'grapheme', maxLength: 20 }),
   fc.constantFrom('', ' ', '\u0000', '\u202e', '🧪🔩', 'δ = 0.38 mm', "'; DROP TABLE users; --", '<script>alert(1)</script>', '%s%n', '../../etc/passwd'),
+  loneSurrogateString(),
 );
+
+/**
+ * Ill-formed UTF-16: a high or low surrogate without its partner, alone, at an
+ * end or in the middle ("\ud800", "a\udc00b", half an emoji). JSON.stringify
+ * writes them as \uXXXX escapes, which JSON.parse turns back into lone surrogates.
+ */
+export function loneSurrogateString(): fc.Arbitrary<string> {
+  const lone = fc.integer({ min: 0xd800, max: 0xdfff }).map((code) => String.fromCharCode(code));
+  return fc
+    .tuple(fc.string({ maxLength: 8 }), lone, fc.string({ maxLength: 8 }))
+    .map(([before, surrogate, after]) => `${before}${surrogate}${after}`)
+    .filter((text) => !(text as string & { isWellFormed(): boolean }).isWellFormed());
+}
 
 /** A value shaped like the schema (valid often enough to reach the service, not always). */
 export function arbitraryFor(schema: unknown, depth = 0): fc.Arbitrary<unknown> {
@@ -100,6 +114,10 @@ export function fuzzBodies(schema: z.ZodType): fc.Arbitrary<FuzzBody> {
       kind: `${key} key`,
       text: `{"${key}":{"polluted":true,"admin":true},${JSON.stringify(value).slice(1)}`.replace(/,}$/, '}'),
     })),
+    fc.tuple(asObject, fc.nat(), loneSurrogateString()).map(([value, n, text]) => {
+      const keys = Object.keys(value);
+      return { kind: 'lone surrogate', text: JSON.stringify({ ...value, [keys.length ? keys[n % keys.length] : 'x']: text }) };
+    }),
     fc.oneof(fc.constant('[]'), fc.constant('null'), fc.constant('42'), fc.constant('"text"'), fc.constant('{"a":'), fc.constant('')).map((text) => ({
       kind: 'not an object',
       text,

@@ -51,9 +51,10 @@ function registerTechniques(): Technique[] {
   return [demo('TAC-ET-023'), bobbinCopy, barCircumferential, barLaminar, ...others];
 }
 
-async function createApproved(level3: SignedIn, technique: Technique) {
+/** Written by one Level 3, approved by another (nobody approves their own revision). */
+async function createApproved(level3: SignedIn, approver: SignedIn, technique: Technique) {
   const created = await expectOk(await level3.post('/api/techniques').send({ technique }), 201);
-  await expectOk(await level3.post(`/api/techniques/${created.id}/revisions/${technique.revision}/approve`).send({ version: created.revisions[0].version }));
+  await expectOk(await approver.post(`/api/techniques/${created.id}/revisions/${technique.revision}/approve`).send({ version: created.revisions[0].version }));
   return created.id as number;
 }
 
@@ -72,9 +73,10 @@ async function setUp(): Promise<World> {
   if (world) return world;
   const cast = await makeCast(context);
   const level3 = await signedInAs(context, ['level3']);
+  const approver = await signedInAs(context, ['level3']);
   const techniques = registerTechniques();
   const ids = new Map<string, number>();
-  for (const technique of techniques) ids.set(technique.code, await createApproved(level3, technique));
+  for (const technique of techniques) ids.set(technique.code, await createApproved(level3, approver, technique));
   // A draft that fails the same rule is not in force: the run leaves it out.
   await expectOk(await level3.post('/api/techniques').send({ technique: { ...demo('TAC-ET-023'), code: `DRAFT-${randomBytes(2).toString('hex')}` } }), 201);
 
@@ -265,7 +267,7 @@ describe('impact on past inspections', () => {
     fixed.flaws = [fixed.flaws[0]];
     const draft = started.revisions.find((revision: { revision: string }) => revision.revision === 'B');
     const edited = await expectOk(await level3.patch(`/api/techniques/${techniqueId}/revisions/B`).send({ version: draft.version, technique: fixed }));
-    await expectOk(await level3.post(`/api/techniques/${techniqueId}/revisions/B/approve`).send({ version: edited.revisions.find((r: { revision: string }) => r.revision === 'B').version }));
+    await expectOk(await (await signedInAs(context, ['level3'])).post(`/api/techniques/${techniqueId}/revisions/B/approve`).send({ version: edited.revisions.find((r: { revision: string }) => r.revision === 'B').version }));
     revisionA = (await TechniqueRevision.findOne({ where: { techniqueId, revision: 'A' } }))!;
     revisionB = (await TechniqueRevision.findOne({ where: { techniqueId, revision: 'B' } }))!;
     await TechniqueRevision.update({ approvedAt: new Date(Date.now() - 100 * 86_400_000) }, { where: { id: revisionA.id }, silent: true });

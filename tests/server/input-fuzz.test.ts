@@ -10,6 +10,7 @@ import type { z } from 'zod';
 import { createTestContext, makeUser, signIn, type SignedIn, type TestContext } from '../helpers/test-app';
 import { makeActionRow, makeFindingRow } from '../helpers/evidence-owners';
 import { fuzzBodies } from '../helpers/zod-arbitrary';
+import { MULTIPART } from '../../server/middlewares/multipart-errors';
 import { UserCreateSchema, UserUpdateSchema } from '../../shared/schemas/user';
 import { AreaCreateSchema, AreaUpdateSchema } from '../../shared/schemas/area';
 import { CertificationCreateSchema } from '../../shared/schemas/certification';
@@ -98,5 +99,84 @@ describe.each(routes)('when fuzzed bodies are sent to %s', (_name, method, url, 
       { numRuns: 40, seed: 20261201 },
     );
     console.log(`${_name}: answers ${JSON.stringify(statuses)}`);
+  });
+});
+
+describe.each(routes)('when a lone UTF-16 surrogate is in the body sent to %s', (_name, method, url) => {
+  it('then 400 names the field and says the text has a broken character, and nothing is written', async () => {
+    const before = await writeState();
+    for (const text of ['{"title":"\\ud800"}', '{"note":"a\\udc00b","version":0}', '{"\\udfff":"key"}']) {
+      const response = await everyone[method === 'post' ? 'post' : 'patch'](url()).set('Content-Type', 'application/json').send(text);
+      expect(response.status, text).toBe(400);
+      expect(response.body.error.details[0].message, text).toContain('broken character');
+    }
+    expect(await writeState()).toBe(before);
+  });
+});
+
+// Every route that parses multipart bodies, found by the marker its upload middleware carries.
+const MULTIPART_ROUTES: [string, () => string][] = [
+  ['upload evidence', () => '/api/evidence'],
+  ['preview an inspection import', () => '/api/inspections/import/preview'],
+  ['import inspections', () => '/api/inspections/import'],
+];
+
+interface Layer {
+  route?: { path: string; methods: Record<string, boolean>; stack: { handle: unknown }[] };
+  handle: { stack?: Layer[] };
+}
+
+function multipartRoutes(stack: Layer[], found: string[] = []): string[] {
+  for (const layer of stack) {
+    if (layer.route?.stack.some((entry) => typeof entry.handle === 'function' && MULTIPART in (entry.handle as object))) found.push(`/api${layer.route.path}`);
+    else if (layer.handle?.stack) multipartRoutes(layer.handle.stack, found);
+  }
+  return found;
+}
+
+const BOUNDARY = 'whorl-fuzz-boundary';
+const part = (headers: string, body: string) => `--${BOUNDARY}\r\n${headers}\r\n\r\n${body}\r\n`;
+const fileHeaders = 'Content-Disposition: form-data; name="file"; filename="probe.csv"\r\nContent-Type: text/csv';
+
+/** Bodies a multipart parser must refuse: each a 400 with a message, never a 500. */
+const MALFORMED: { kind: string; contentType: string; body: string | Buffer }[] = [
+  { kind: 'bad part header', contentType: `multipart/form-data; boundary=${BOUNDARY}`, body: `--${BOUNDARY}\r\nContent-Disposition form-data name file\r\n\r\nx\r\n--${BOUNDARY}--\r\n` },
+  { kind: 'header line without a colon', contentType: `multipart/form-data; boundary=${BOUNDARY}`, body: `--${BOUNDARY}\r\n${'x'.repeat(100)}\r\n\r\nx\r\n--${BOUNDARY}--\r\n` },
+  { kind: 'missing boundary', contentType: 'multipart/form-data', body: part(fileHeaders, 'a,b\r\n1,2') + `--${BOUNDARY}--\r\n` },
+  { kind: 'empty boundary', contentType: 'multipart/form-data; boundary=', body: part(fileHeaders, 'a,b') },
+  { kind: 'truncated body', contentType: `multipart/form-data; boundary=${BOUNDARY}`, body: part(fileHeaders, 'a,b\r\n1,2').slice(0, -12) },
+  { kind: 'no closing boundary', contentType: `multipart/form-data; boundary=${BOUNDARY}`, body: part(fileHeaders, 'a,b\r\n1,2') },
+  { kind: 'boundary only', contentType: `multipart/form-data; boundary=${BOUNDARY}`, body: `--${BOUNDARY}` },
+  { kind: 'empty body', contentType: `multipart/form-data; boundary=${BOUNDARY}`, body: '' },
+];
+
+describe('multipart routes', () => {
+  it('then the fuzzed list holds every route that parses multipart bodies', () => {
+    const router = (context.app as unknown as { router: { stack: Layer[] } }).router;
+    expect(multipartRoutes(router.stack).sort()).toEqual(MULTIPART_ROUTES.map(([, url]) => url()).sort());
+  });
+
+  describe.each(MULTIPART_ROUTES)('when malformed multipart bodies are sent to %s', (_name, url) => {
+    it.each(MALFORMED)('then “$kind” is a 400 with a message and nothing is written', async ({ contentType, body }) => {
+      const before = await writeState();
+      const response = await everyone.post(url()).set('Content-Type', contentType).send(body);
+      expect(response.status).toBe(400);
+      expect(response.headers['content-type']).toMatch(/application\/json/);
+      expect(response.body.error.message).toEqual(expect.any(String));
+      expect(await writeState()).toBe(before);
+    });
+
+    it('then random bytes under a multipart content type are answered with a refusal, never a 500', async () => {
+      await fc.assert(
+        fc.asyncProperty(fc.uint8Array({ maxLength: 600 }), fc.constantFrom(`multipart/form-data; boundary=${BOUNDARY}`, 'multipart/form-data', 'multipart/form-data; boundary="a b"'), async (bytes, contentType) => {
+          const before = await writeState();
+          const prefix = Buffer.from(`--${BOUNDARY}\r\n`);
+          const response = await everyone.post(url()).set('Content-Type', contentType).send(Buffer.concat([prefix, Buffer.from(bytes)]));
+          expect(REFUSALS.has(response.status), `${response.status} ${JSON.stringify(response.body)}`).toBe(true);
+          expect(await writeState()).toBe(before);
+        }),
+        { numRuns: 25, seed: 20261202 },
+      );
+    });
   });
 });

@@ -47,6 +47,7 @@ describe('CSV export of the record lists', () => {
     expect(audits.map((row) => [row.Audit, row.State, row.Techniques])).toEqual([[String(audit.id), 'fieldwork', 'TAC-ET-023 rev A']]);
     const techniques = await cast.technician.agent.get('/api/techniques.csv');
     expect(techniques.status).toBe(200);
-    expect(techniques.text.split('\r\n')[0]).toBe('\ufeffCode,Title,Area,Latest revision,State,Approved revision in force,Checklist verdict,Failed rules,Updated');
+    // Every field quoted (CSV injection guard), the header row too.
+    expect(techniques.text.split('\r\n')[0]).toBe('\ufeff"Code","Title","Area","Latest revision","State","Approved revision in force","Checklist verdict","Failed rules","Updated"');
   });
 });

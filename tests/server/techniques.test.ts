@@ -26,6 +26,13 @@ async function createDraft(session: SignedIn, technique = exampleTechnique()) {
   return { id: response.body.id as number, body: response.body, technique };
 }
 
+/** A second Level 3: nobody approves a revision they wrote. */
+let reviewer: SignedIn | undefined;
+async function otherLevel3(): Promise<SignedIn> {
+  reviewer ??= await signedInAs(context, ['level3']);
+  return reviewer;
+}
+
 async function trailEvents(id: number) {
   const entries = await TrailEntry.findAll({ where: { recordType: 'technique', recordId: String(id) }, order: [['seq', 'ASC']] });
   return entries.map((entry) => entry.event);
@@ -72,7 +79,7 @@ describe('creating a technique', () => {
     expect(response.status).toBe(201);
     expect(response.body).toMatchObject({ code: technique.code, title: technique.title, areaId: area.id, areaName: area.name, currentRevision: 'A' });
     expect(response.body.revisions).toHaveLength(1);
-    expect(response.body.revisions[0]).toMatchObject({ revision: 'A', state: 'draft', verdict: 'conforms', allowedEvents: ['EDIT', 'APPROVE'] });
+    expect(response.body.revisions[0]).toMatchObject({ revision: 'A', state: 'draft', verdict: 'conforms', allowedEvents: ['EDIT'] /* its author never approves it */ });
     expect(response.body.revisions[0].content.coils[0].shielded).toBe(true);
     expect(await trailEvents(response.body.id)).toEqual(['TECHNIQUE_CREATED']);
   });
@@ -176,15 +183,20 @@ describe('approving and revising', () => {
     const { id, body, technique } = await createDraft(level3);
     const version = body.revisions[0].version;
     expect((await request(context.app).post(`/api/techniques/${id}/revisions/A/approve`).send({ version })).status).toBe(401);
-    expect((await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({})).status).toBe(400);
-    expect((await level3.post(`/api/techniques/${id}/revisions/Z/approve`).send({ version })).status).toBe(404);
-    expect((await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({ version: version + 1 })).status).toBe(409);
+    expect((await (await otherLevel3()).post(`/api/techniques/${id}/revisions/A/approve`).send({})).status).toBe(400);
+    expect((await (await otherLevel3()).post(`/api/techniques/${id}/revisions/Z/approve`).send({ version })).status).toBe(404);
+    expect((await (await otherLevel3()).post(`/api/techniques/${id}/revisions/A/approve`).send({ version: version + 1 })).status).toBe(409);
 
-    const approved = await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({ version });
+    // Its author may not approve it (segregation of duties); another Level 3 may.
+    const own = await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({ version });
+    expect(own.status).toBe(403);
+    expect(own.body.revisions).toBeUndefined();
+    const approver = await otherLevel3();
+    const approved = await approver.post(`/api/techniques/${id}/revisions/A/approve`).send({ version });
     expect(approved.status).toBe(200);
     expect(approved.body.revisions[0]).toMatchObject({
       state: 'approved',
-      approvedBy: { id: level3.user.id, name: level3.user.displayName },
+      approvedBy: { id: approver.user.id, name: approver.user.displayName },
       allowedEvents: [],
     });
     expect(approved.body.revisions[0].approvedAt).toEqual(expect.any(String));
@@ -195,7 +207,7 @@ describe('approving and revising', () => {
       .send({ version: approved.body.revisions[0].version, technique: { ...technique, title: 'Changed after approval' } });
     expect(edit.status).toBe(422);
     expect(edit.body.error.message).toContain('read-only');
-    const again = await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({ version: approved.body.revisions[0].version });
+    const again = await (await otherLevel3()).post(`/api/techniques/${id}/revisions/A/approve`).send({ version: approved.body.revisions[0].version });
     expect(again.status).toBe(422);
     expect((await TechniqueRevision.findOne({ where: { techniqueId: id } }))!.content.title).toBe(technique.title);
     expect(await trailEvents(id)).toEqual(['TECHNIQUE_CREATED', 'REVISION_APPROVED']);
@@ -204,7 +216,7 @@ describe('approving and revising', () => {
   it('when a new revision is started, then it copies the latest into a draft B; approving B supersedes A', async () => {
     const level3 = await signedInAs(context, ['level3']);
     const { id, body } = await createDraft(level3);
-    await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({ version: body.revisions[0].version });
+    await (await otherLevel3()).post(`/api/techniques/${id}/revisions/A/approve`).send({ version: body.revisions[0].version });
 
     expect((await request(context.app).post(`/api/techniques/${id}/revisions`).send({})).status).toBe(401);
     const auditor = await signedInAs(context, ['auditor']);
@@ -224,7 +236,7 @@ describe('approving and revising', () => {
     expect(second.status).toBe(422);
     expect(second.body.error.message).toContain('still a draft');
 
-    const approved = await level3.post(`/api/techniques/${id}/revisions/B/approve`).send({ version: draft.version });
+    const approved = await (await otherLevel3()).post(`/api/techniques/${id}/revisions/B/approve`).send({ version: draft.version });
     expect(approved.status).toBe(200);
     const states = Object.fromEntries(approved.body.revisions.map((revision: { revision: string; state: string }) => [revision.revision, revision.state]));
     expect(states).toEqual({ A: 'superseded', B: 'approved' });
@@ -244,9 +256,9 @@ describe('reading the register', () => {
     const area = await makeArea();
     const cResponse = await level3.post('/api/techniques').send({ technique: exampleTechnique({ code: `${tag}-3` }), areaId: area.id });
     const c = { id: cResponse.body.id as number, body: cResponse.body };
-    await level3.post(`/api/techniques/${a.id}/revisions/A/approve`).send({ version: a.body.revisions[0].version });
+    await (await otherLevel3()).post(`/api/techniques/${a.id}/revisions/A/approve`).send({ version: a.body.revisions[0].version });
     await level3.post(`/api/techniques/${a.id}/revisions`).send({});
-    await level3.post(`/api/techniques/${c.id}/revisions/A/approve`).send({ version: c.body.revisions[0].version });
+    await (await otherLevel3()).post(`/api/techniques/${c.id}/revisions/A/approve`).send({ version: c.body.revisions[0].version });
 
     const technician = await signedInAs(context, ['technician']);
     const all = await technician.agent.get(`/api/techniques?q=${tag}&sort=-code`);
@@ -280,7 +292,7 @@ describe('reading the register', () => {
   it('when the checklist of a technique is asked for, then the approved revision in force is evaluated (or the one named)', async () => {
     const level3 = await signedInAs(context, ['level3']);
     const { id, body, technique } = await createDraft(level3);
-    await level3.post(`/api/techniques/${id}/revisions/A/approve`).send({ version: body.revisions[0].version });
+    await (await otherLevel3()).post(`/api/techniques/${id}/revisions/A/approve`).send({ version: body.revisions[0].version });
     const started = await level3.post(`/api/techniques/${id}/revisions`).send({});
     // Draft B drops the reference notch at the edge: the edge-effect rule then fails.
     const withoutEdgeNotch = {

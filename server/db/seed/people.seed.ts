@@ -18,6 +18,8 @@ export const DEMO_USERS: { key: string; email: string; displayName: string; role
   { key: 'quality', email: 'quality@tarnbrook.example', displayName: 'Ines Harrow', roles: ['quality_manager'], area: null },
   { key: 'accountable', email: 'accountable@tarnbrook.example', displayName: 'Rafael Oduya', roles: ['accountable_manager'], area: null },
   { key: 'level3', email: 'level3@tarnbrook.example', displayName: 'Sunniva Brack', roles: ['level3'], area: 'WBS' },
+  // A second Level 3: nobody approves a technique revision they wrote.
+  { key: 'level3b', email: 'level3b@tarnbrook.example', displayName: 'Orla Dunmore', roles: ['level3'], area: null },
   { key: 'technician', email: 'technician@tarnbrook.example', displayName: 'Deniz Calloway', roles: ['technician'], area: 'RCV' },
   { key: 'admin', email: 'admin@tarnbrook.example', displayName: 'Petra Lowe', roles: ['admin'], area: null },
 ];

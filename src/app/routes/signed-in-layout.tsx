@@ -8,9 +8,12 @@ import { Caution } from '../../components/ui/caution';
 import { Loading } from '../../components/ui/states';
 import { ROLE_LABELS } from '../../../shared/roles';
 import { NAV_ITEMS } from '../nav-items';
+import { Dialog } from '../../components/ui/dialog';
+import { PasswordChangeForm } from '../../features/auth/components/password-change-form';
 
 function UserMenu({ name, roles, area }: { name: string; roles: string; area: string | null }) {
   const [open, setOpen] = useState(false);
+  const [changing, setChanging] = useState(false);
   const signOut = useSignOut();
   const navigate = useNavigate();
   return (
@@ -40,6 +43,17 @@ function UserMenu({ name, roles, area }: { name: string; roles: string; area: st
           <button
             type="button"
             role="menuitem"
+            className="w-full rounded-md px-2 py-1.5 text-left hover:bg-paper"
+            onClick={() => {
+              setOpen(false);
+              setChanging(true);
+            }}
+          >
+            Change password
+          </button>
+          <button
+            type="button"
+            role="menuitem"
             className="w-full rounded-md px-2 py-1.5 text-left font-bold hover:bg-paper"
             onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
           >
@@ -47,7 +61,34 @@ function UserMenu({ name, roles, area }: { name: string; roles: string; area: st
           </button>
         </div>
       )}
+      <Dialog open={changing} title="Change your password" onClose={() => setChanging(false)}>
+        <PasswordChangeForm onDone={() => setChanging(false)} onCancel={() => setChanging(false)} />
+      </Dialog>
     </div>
+  );
+}
+
+/** After an administrator set this person's password, nothing else opens until they choose their own. */
+function ChooseOwnPassword({ name }: { name: string }) {
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <main className="flex min-h-screen items-center justify-center bg-ink px-4">
+      <div className="w-full max-w-md rounded-2xl bg-paper p-8 shadow-xl">
+        <h1 className="mb-2 text-xl font-bold">Choose your own password</h1>
+        <p className="mb-4 text-sm text-ink-soft">
+          {name}, an administrator set the password you signed in with, so they know it. Choose one only you know before you go on.
+        </p>
+        <PasswordChangeForm onDone={() => navigate('/', { replace: true })} />
+        <button
+          type="button"
+          className="mt-4 text-sm font-bold text-ink-soft underline"
+          onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
+        >
+          Sign out instead
+        </button>
+      </div>
+    </main>
   );
 }
 
@@ -56,6 +97,7 @@ export function Component() {
   const ability = useMemo(() => abilityFromPackedRules(session.data?.rules ?? []), [session.data?.rules]);
   if (!session.data) return <Loading what="Checking your session" />;
   const { user } = session.data;
+  if (user.passwordChangeRequired) return <ChooseOwnPassword name={user.displayName} />;
   const items = NAV_ITEMS.filter((item) => !item.visible || item.visible(ability));
 
   return (

@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { ROLES, ROLE_LABELS, type Role } from '../../../../shared/roles';
-import type { UserView } from '../../../../shared/schemas/user';
+import { SIGNING_ROLES, type UserView } from '../../../../shared/schemas/user';
+import { useSession } from '../../auth/api/session';
 import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
@@ -30,6 +31,10 @@ export function UserForm({
   onCancel(): void;
 }) {
   const areas = useAreas();
+  const me = useSession().data?.user;
+  // Nobody gives themself a signing role: another administrator must (the server refuses it too).
+  const editingSelf = Boolean(user && me && user.id === me.id);
+  const mayNotGrant = (role: Role) => editingSelf && (SIGNING_ROLES as readonly Role[]).includes(role) && !user!.roles.includes(role);
   const [values, setValues] = useState<UserFormValues>({
     email: user?.email ?? '',
     displayName: user?.displayName ?? '',
@@ -65,23 +70,32 @@ export function UserForm({
         autoComplete="new-password"
         value={values.password}
         onChange={(e) => set('password', e.target.value)}
-        hint="At least 12 characters; a phrase of several words works well."
+        hint={
+          editingSelf
+            ? 'At least 12 characters; a phrase of several words works well. Common and breached passwords are refused.'
+            : 'At least 12 characters; common and breached passwords are refused. The person chooses their own at next sign-in, and their open sessions end.'
+        }
         error={fieldError('password')}
       />
       <fieldset className="flex flex-col gap-1">
         <legend className="text-sm font-bold">Roles</legend>
         <div className="grid grid-cols-2 gap-1">
           {ROLES.map((role) => (
-            <label key={role} className="flex items-center gap-2 text-sm">
+            <label key={role} className={`flex items-center gap-2 text-sm ${mayNotGrant(role) ? 'text-ink-soft' : ''}`}>
               <input
                 type="checkbox"
                 checked={values.roles.includes(role)}
+                disabled={mayNotGrant(role)}
                 onChange={(e) => set('roles', e.target.checked ? [...values.roles, role] : values.roles.filter((r) => r !== role))}
               />
               {ROLE_LABELS[role]}
             </label>
           ))}
         </div>
+        {editingSelf && (
+          <p className="text-xs text-ink-soft">Quality manager and accountable manager sign records: another administrator gives you these roles.</p>
+        )}
+        {user && !editingSelf && <p className="text-xs text-ink-soft">A change of roles ends the person’s open sessions.</p>}
         {fieldError('roles') && <p className="text-xs font-bold text-fail">{fieldError('roles')}</p>}
       </fieldset>
       <SelectField label="Area" value={values.areaId ?? ''} onChange={(e) => set('areaId', e.target.value ? Number(e.target.value) : null)} error={fieldError('areaId')}>

@@ -13,6 +13,9 @@ import { UserForm, type UserFormValues } from './user-form';
 
 const column = createColumnHelper<UserView>();
 
+/** The end of a temporary sign-in lock, in the reader's local time. */
+const lockEnd = (iso: string) => new Date(iso).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' });
+
 type Pending = { kind: 'create' } | { kind: 'edit'; user: UserView } | { kind: 'deactivate'; user: UserView } | { kind: 'unlock'; user: UserView } | null;
 
 export function UsersTable() {
@@ -43,14 +46,15 @@ export function UsersTable() {
       column.display({
         id: 'status',
         header: 'Status',
-        cell: ({ row }) =>
-          row.original.locked ? (
-            <span className="font-bold text-fail">Locked</span>
-          ) : row.original.active ? (
-            <span className="text-pass">Active</span>
-          ) : (
-            <span className="text-ink-soft">Deactivated</span>
-          ),
+        cell: ({ row }) => (
+          <div className="flex flex-col">
+            {row.original.active ? <span className="text-pass">Active</span> : <span className="text-ink-soft">Deactivated</span>}
+            {row.original.locked && row.original.lockedUntil && (
+              <span className="text-xs font-bold text-fail">Sign-in paused until {lockEnd(row.original.lockedUntil)} after failed passwords</span>
+            )}
+            {row.original.passwordChangeRequired && <span className="text-xs text-ink-soft">Chooses a new password at next sign-in</span>}
+          </div>
+        ),
       }),
       column.display({
         id: 'actions',
@@ -172,8 +176,8 @@ export function UsersTable() {
           onCancel={close}
           onConfirm={() => unlockUser.mutate(pending.user.id, { onSuccess: close })}
         >
-          The account was locked after repeated failed passwords. Unlock it only once you know the person, not someone else, was trying to sign
-          in.
+          Sign-in to this account is paused for a few minutes after repeated failed passwords; the pause ends by itself. Unlock it now only once
+          you know the person, not someone else, was trying to sign in.
         </ConfirmDialog>
       )}
     </div>

@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { api, ApiError, setCsrfToken } from '../../../lib/api-client';
 import type { SessionResponse } from '../../../../shared/types/session';
 import type { SignInInput } from '../../../../shared/schemas/session';
+import type { PasswordChangeInput } from '../../../../shared/schemas/user';
 
 export const sessionQueryKey = ['session'] as const;
 
@@ -44,6 +45,18 @@ export function useSignOut() {
       setCsrfToken(null);
       queryClient.clear();
       queryClient.setQueryData(sessionQueryKey, null);
+    },
+  });
+}
+
+/** A person choosing their own password; their other sessions end on the server. */
+export function useChangePassword() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: PasswordChangeInput) => api.post<SessionResponse>('/session/password', input),
+    onSuccess: (session) => {
+      setCsrfToken(session.csrfToken);
+      queryClient.setQueryData(sessionQueryKey, session);
     },
   });
 }
