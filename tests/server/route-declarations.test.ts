@@ -78,6 +78,11 @@ const EXPECTED_GUARDS: [string, string][] = [
   ['POST /evidence/:id/supersede', 'can supersede Evidence'],
   ['GET /mailbox', 'can read Mailbox'],
   ['GET /mailbox/:id', 'can read Mailbox'],
+  // Everyone reads their own messages (the service narrows to the reader's unless they are an administrator).
+  ['GET /notifications', 'can read Notification'],
+  ['GET /notifications/:id', 'can read Notification'],
+  ['GET /me/delivery', 'signed-in'],
+  ['PATCH /me/delivery', 'signed-in'],
   ['GET /certifications', 'can read Certification'],
   ['GET /certifications.csv', 'can read Certification'],
   ['GET /certifications/:id', 'can read Certification'],
