@@ -84,7 +84,7 @@ export async function chainIdentity(sequelize: Sequelize): Promise<ChainIdentity
  * Writes the current head as an anchor. Safe to call after any commit (a
  * signature, the daily job); anchors are written one at a time per process.
  */
-export function writeTrailAnchor(sequelize: Sequelize, reason: string): Promise<TrailAnchor | null> {
+export function writeTrailAnchor(sequelize: Sequelize, reason: string): Promise<TrailAnchor> {
   const run = queue.then(async () => {
     if (!anchorFile) throw new Error('Trail anchors are not configured: call configureTrail(config)');
     const key = trailKey();
