@@ -4,7 +4,7 @@
 import path from 'node:path';
 import { loadConfig } from '../server/config/env';
 import { startLocalMariadb, type LocalInstance } from '../server/db/local-mariadb';
-import { createSequelize } from '../server/db/sequelize';
+import { createAppSequelize } from '../server/db/sequelize';
 import { excessPrivileges, migrateWithAccounts } from '../server/db/privileges';
 import { configureTrail, writeTrailAnchor } from '../server/services/trail-anchors';
 import { isDatabaseEmpty, seedDemo } from '../server/db/seed';
@@ -29,12 +29,7 @@ async function main() {
   // Migrations as the owner account; then the application account gets its table privileges.
   const applied = await migrateWithAccounts({ ownerUrl: config.databaseOwnerUrl, appUrl: config.databaseUrl });
   if (applied.length) console.log(`Applied ${applied.length} migration(s).`);
-  const sequelize = createSequelize({
-    url: config.databaseUrl,
-    poolMax: config.databasePoolMax,
-    acquireTimeoutMs: config.database.acquireTimeoutMs,
-    queryTimeoutMs: config.database.queryTimeoutMs,
-  });
+  const sequelize = createAppSequelize(config);
   const excess = await excessPrivileges(sequelize);
   if (excess.length) {
     console.warn(

@@ -7,7 +7,7 @@ import { createApp } from './app';
 import { createLogger } from './lib/logger';
 import type { AppConfig } from './config/env';
 import type { AppDeps } from './app-deps';
-import { createSequelize } from './db/sequelize';
+import { createAppSequelize } from './db/sequelize';
 import { startMail, type MailRuntime } from './mail';
 
 export const CLIENT_DIR = path.resolve(fileURLToPath(new URL('.', import.meta.url)), '../dist');
@@ -23,14 +23,7 @@ export interface RunningServer {
 
 export async function startServer(
   config: AppConfig,
-  {
-    sequelize = createSequelize({
-      url: config.databaseUrl,
-      poolMax: config.databasePoolMax,
-      acquireTimeoutMs: config.database.acquireTimeoutMs,
-      queryTimeoutMs: config.database.queryTimeoutMs,
-    }),
-    clientDir = CLIENT_DIR }: { sequelize?: Sequelize; clientDir?: string } = {},
+  { sequelize = createAppSequelize(config), clientDir = CLIENT_DIR }: { sequelize?: Sequelize; clientDir?: string } = {},
 ): Promise<RunningServer> {
   const logger = createLogger(config.logLevel);
   const deps: AppDeps = { config, sequelize, logger, clock: { now: () => new Date() } };

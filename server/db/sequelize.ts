@@ -1,4 +1,5 @@
 import { Sequelize } from 'sequelize';
+import type { AppConfig } from '../config/env';
 
 export interface DatabaseOptions {
   url: string;
@@ -29,5 +30,15 @@ export function createSequelize({ url, poolMax = 20, logging = false, acquireTim
       socketTimeout: queryTimeoutMs,
     },
     define: { underscored: true },
+  });
+}
+
+/** The application's pool, with the configured size and bounded waits. */
+export function createAppSequelize(config: AppConfig): Sequelize {
+  return createSequelize({
+    url: config.databaseUrl,
+    poolMax: config.databasePoolMax,
+    acquireTimeoutMs: config.database.acquireTimeoutMs,
+    queryTimeoutMs: config.database.queryTimeoutMs,
   });
 }

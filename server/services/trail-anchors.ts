@@ -6,7 +6,7 @@
 // anchor of the same chain: a trail rewritten, cut short or emptied no longer
 // shows the hashes its anchors recorded.
 import { createHmac } from 'node:crypto';
-import { mkdirSync, openSync, closeSync, fstatSync, readSync, readFileSync, writeSync, existsSync, writeFileSync, rmSync } from 'node:fs';
+import { mkdirSync, openSync, closeSync, fstatSync, readSync, readFileSync, writeSync, existsSync, writeFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import canonicalize from 'canonicalize';
@@ -84,7 +84,7 @@ export async function chainIdentity(sequelize: Sequelize): Promise<ChainIdentity
  * Writes the current head as an anchor. Safe to call after any commit (a
  * signature, the daily job); anchors are written one at a time per process.
  */
-export function writeTrailAnchor(sequelize: Sequelize, reason: string): Promise<TrailAnchor | null> {
+export function writeTrailAnchor(sequelize: Sequelize, reason: string): Promise<TrailAnchor> {
   const run = queue.then(async () => {
     if (!anchorFile) throw new Error('Trail anchors are not configured: call configureTrail(config)');
     const key = trailKey();
@@ -92,23 +92,54 @@ export function writeTrailAnchor(sequelize: Sequelize, reason: string): Promise<
     const [head] = await sequelize.query<{ seq: number | string; hash: string }>('SELECT seq, hash FROM trail_head WHERE id = 1', {
       type: QueryTypes.SELECT,
     });
-    const previous = lastLine(anchorFile);
-    const prev = previous ? (JSON.parse(previous) as TrailAnchor).mac : GENESIS;
-    const body = { chain: chainId, seq: Number(head.seq), hash: head.hash, at: new Date().toISOString(), reason, keyId: trailKeyId(key), prev };
-    const anchor: TrailAnchor = { ...body, mac: macOf(key, body) };
-    const line = `${JSON.stringify(anchor)}\n`;
-    mkdirSync(path.dirname(anchorFile), { recursive: true });
-    const fd = openSync(anchorFile, 'a', 0o600);
-    try {
-      writeSync(fd, line);
-    } finally {
-      closeSync(fd);
-    }
+    const file = anchorFile;
+    mkdirSync(path.dirname(file), { recursive: true });
+    // Several app servers on one host may share the file: read the last line and append under one lock.
+    const { anchor, line } = await withFileLock(file, async () => {
+      const previous = lastLine(file);
+      const prev = previous ? (JSON.parse(previous) as TrailAnchor).mac : GENESIS;
+      const body = { chain: chainId, seq: Number(head.seq), hash: head.hash, at: new Date().toISOString(), reason, keyId: trailKeyId(key), prev };
+      const written: TrailAnchor = { ...body, mac: macOf(key, body) };
+      const text = `${JSON.stringify(written)}\n`;
+      const fd = openSync(file, 'a', 0o600);
+      try {
+        writeSync(fd, text);
+      } finally {
+        closeSync(fd);
+      }
+      return { anchor: written, line: text };
+    });
     if (objectStore) await copyToObjectStore(objectStore, anchor, line);
     return anchor;
   });
   queue = run.catch(() => undefined);
   return run;
+}
+
+/** An exclusive lock file beside the log (O_EXCL); one left by a process that died is taken over after 10 s. */
+async function withFileLock<T>(file: string, fn: () => Promise<T>): Promise<T> {
+  const lock = `${file}.lock`;
+  const deadline = Date.now() + 5_000;
+  for (;;) {
+    try {
+      closeSync(openSync(lock, 'wx', 0o600));
+      break;
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+      try {
+        if (Date.now() - statSync(lock).mtimeMs > 10_000) rmSync(lock, { force: true });
+      } catch {
+        /* released meanwhile */
+      }
+      if (Date.now() > deadline) throw new Error(`The anchor log ${file} stays locked (${lock})`);
+      await new Promise((resolve) => setTimeout(resolve, 20));
+    }
+  }
+  try {
+    return await fn();
+  } finally {
+    rmSync(lock, { force: true });
+  }
 }
 
 /** Objects are never overwritten, so the store keeps every anchor as written. */
@@ -120,12 +151,6 @@ async function copyToObjectStore(store: EvidenceStorage, anchor: TrailAnchor, li
   } finally {
     rmSync(temp, { force: true });
   }
-}
-
-/** Writes an anchor after a commit without failing the request that caused it; a failure is logged. */
-export function anchorAfterCommit(sequelize: Sequelize, reason: string, onError: (error: unknown) => void = () => undefined): void {
-  if (!anchorFile) return;
-  void writeTrailAnchor(sequelize, reason).catch(onError);
 }
 
 export interface AnchorLog {

@@ -15,6 +15,8 @@ import { excessPrivileges } from '../../server/db/privileges';
 import { keyedEntryHash, unkeyedEntryHash, verifyTrail } from '../../server/services/trail.service';
 import { anchorFilePath, writeTrailAnchor } from '../../server/services/trail-anchors';
 import { makeCast, findingAwaitingSignoff } from '../helpers/workflow';
+import { createScheduler } from '../../server/jobs';
+import { trailAnchorJob } from '../../server/jobs/trail-anchor.job';
 
 let context: TestContext;
 let owner: Sequelize;
@@ -199,6 +201,17 @@ describe('the trail under attack', () => {
       await rewriteAndRechain(2, (entry) => (entry.seq < switchSeq ? unkeyedEntryHash(entry) : keyedEntryHash(Buffer.from('guess'.repeat(8)), entry)));
       expect(keyedHead.seq).toBeGreaterThan(switchSeq);
       expect(await verify()).toMatchObject({ ok: false, firstBrokenSeq: switchSeq, caughtBy: 'chain' });
+    });
+  });
+
+  describe('when the scheduled anchor job runs', () => {
+    it('then the current head is appended to the anchor log with its chained MAC', async () => {
+      const now = await head();
+      expect(await createScheduler(context.deps, [trailAnchorJob]).tick()).toEqual(['trail-anchor']);
+      const lines = readFileSync(anchorFilePath()!, 'utf8').trim().split('\n').map((line) => JSON.parse(line));
+      expect(lines[lines.length - 1]).toMatchObject({ reason: 'scheduled', seq: now.seq, hash: now.hash });
+      expect(lines[lines.length - 1].mac).toMatch(/^[0-9a-f]{64}$/);
+      expect(await verify()).toMatchObject({ ok: true, anchors: { checked: lines.length } });
     });
   });
 
