@@ -16,7 +16,7 @@ const fieldError = (path: string, message: string, status = 400) =>
 
 export async function changeOwnPassword(
   { sequelize, config, clock }: AppDeps,
-  { userId, sid }: { userId: number; sid: string; address: string },
+  { userId, sid }: { userId: number; sid: string },
   input: PasswordChangeInput,
 ): Promise<void> {
   const user = await User.findByPk(userId);

@@ -78,7 +78,7 @@ export function sessionRoutes(deps: AppDeps, passport: PassportStatic, csrf: Csr
   // Choosing a new password: the person's own, or the one an administrator set must be replaced.
   router.post('/session/password', requires.signedIn('a person changes their own password'), async (req, res) => {
     const input = parseBody(PasswordChangeSchema, req);
-    await changeOwnPassword(deps, { userId: res.locals.user!.id, sid: req.sessionID, address: req.ip ?? 'unknown' }, input);
+    await changeOwnPassword(deps, { userId: res.locals.user!.id, sid: req.sessionID }, input);
     const sessionUser = await loadActiveSessionUser(res.locals.user!.id);
     if (!sessionUser) throw new AppError('Sign in first', { status: 401, code: 'unauthenticated' });
     res.json(sessionBody(req, sessionUser, csrf, false));

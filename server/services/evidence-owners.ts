@@ -43,8 +43,8 @@ const loaders = new Map<EvidenceRecordType, OwnerLoader>([
     recordOwnerId: Number(row.lead_auditor_id), label: String(row.title), path: `/audits/${id}`, frozen: row.state === 'closed' || row.state === 'cancelled',
   }))],
   // A technique's evidence belongs to its open draft; with none open (every revision approved) it is frozen until a new revision starts.
-  ['technique', sqlLoader('technique', "SELECT created_by_id, code, EXISTS (SELECT 1 FROM technique_revisions r WHERE r.technique_id = t.id AND r.state = 'draft') AS has_draft FROM techniques t WHERE t.id = ?", (row, id) => ({
-    recordOwnerId: Number(row.created_by_id), label: String(row.code), path: `/techniques/${id}`, frozen: Number(row.has_draft) === 0,
+  ['technique', sqlLoader('technique', "SELECT created_by_id, code, EXISTS (SELECT 1 FROM technique_revisions r WHERE r.technique_id = t.id AND r.state = 'draft') AS has_draft, EXISTS (SELECT 1 FROM technique_revisions r WHERE r.technique_id = t.id AND r.approved_at IS NOT NULL) AS has_approved FROM techniques t WHERE t.id = ?", (row, id) => ({
+    recordOwnerId: Number(row.created_by_id), label: String(row.code), path: `/techniques/${id}`, frozen: Number(row.has_draft) === 0 && Number(row.has_approved) === 1,
   }))],
   ['certification', sqlLoader('certification', 'SELECT user_id, certificate_number FROM certifications WHERE id = ?', (row) => ({
     recordOwnerId: Number(row.user_id), label: `Certificate ${String(row.certificate_number)}`, path: '/registers',

@@ -56,7 +56,8 @@ describe('inspection register', () => {
 
   it('when a technician records against the superseded revision within its period, then it is accepted', async () => {
     const technician = await signedInAs(context, ['technician']);
-    const response = await technician.post('/api/inspections').send(inspectionBody(fixture, inspector, { techniqueRevisionId: fixture.superseded.id, performedOn: '2026-03-01' }));
+    // A technician records their own work: they are its inspector.
+    const response = await technician.post('/api/inspections').send(inspectionBody(fixture, technician.user, { techniqueRevisionId: fixture.superseded.id, performedOn: '2026-03-01' }));
     expect(response.status).toBe(201);
     expect(response.body.revision.revision).toBe('A');
   });
@@ -167,7 +168,8 @@ describe('inspection register', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toContain('text/csv');
     const lines = csv.text.replace(/^\uFEFF/, '').trim().split('\r\n');
-    expect(lines[0]).toBe('Date,Technique code,Revision,Part number,Serial number,Work order,Customer,Inspector,Result,Instrument serial,Probe serial,Reference standard serial,Notes');
+    // Every field quoted (CSV injection guard).
+    expect(lines[0]).toBe('"Date","Technique code","Revision","Part number","Serial number","Work order","Customer","Inspector","Result","Instrument serial","Probe serial","Reference standard serial","Notes"');
     expect(lines).toHaveLength(5);
     expect(lines[1]).toContain('2026-04-01');
     expect(lines[1]).toContain('PN-DELTA');
@@ -225,8 +227,8 @@ describe('inspection register', () => {
     const refused = await technician.patch(`/api/inspections/${theirs.id}`).send({ ...inspectionBody(fixture, inspector, { result: 'reject' }), version: theirs.version });
     expect(refused.status).toBe(403);
     expect((await Inspection.findByPk(theirs.id))!.result).toBe('accept');
-    const own = (await technician.post('/api/inspections').send(inspectionBody(fixture, inspector))).body;
-    const fixed = await technician.patch(`/api/inspections/${own.id}`).send({ ...inspectionBody(fixture, inspector, { result: 'reject' }), version: own.version });
+    const own = (await technician.post('/api/inspections').send(inspectionBody(fixture, technicianUser))).body;
+    const fixed = await technician.patch(`/api/inspections/${own.id}`).send({ ...inspectionBody(fixture, technicianUser, { result: 'reject' }), version: own.version });
     expect(fixed.status).toBe(200);
     expect(fixed.body.result).toBe('reject');
   });

@@ -5,6 +5,8 @@ import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { ErrorNotice } from '../../../components/ui/states';
+import { subject } from '@casl/ability';
+import { useAbility } from '../../../lib/ability';
 
 interface FormValues {
   techniqueRevisionId: string;
@@ -75,6 +77,10 @@ export function InspectionForm({
   onSubmit(input: InspectionInput): void;
   onCancel(): void;
 }) {
+  // Whoever records names themself as inspector unless their role records for others (shared/abilities.ts).
+  const ability = useAbility();
+  const inspectors = options.inspectors.filter((p) => p.id === item?.inspector.id || ability.can('create', subject('Inspection', { inspectorId: p.id })));
+  const ownOnly = inspectors.length < options.inspectors.length;
   const [values, setValues] = useState<FormValues>({
     techniqueRevisionId: item ? String(item.revision.id) : '',
     performedOn: item?.performedOn ?? todayIso(),
@@ -130,9 +136,16 @@ export function InspectionForm({
         hint={revision ? `On or after ${revision.approvedOn}, not in the future` : undefined}
         required
       />
-      <SelectField label="Inspector" value={values.inspectorId} onChange={(e) => set('inspectorId', e.target.value)} error={fieldError('inspectorId')} required>
+      <SelectField
+        label="Inspector"
+        value={values.inspectorId}
+        onChange={(e) => set('inspectorId', e.target.value)}
+        error={fieldError('inspectorId')}
+        hint={ownOnly ? 'You record the inspections you performed; a quality manager records them for other inspectors.' : undefined}
+        required
+      >
         <option value="">Choose the inspector</option>
-        {options.inspectors.map((p) => (
+        {inspectors.map((p) => (
           <option key={p.id} value={p.id}>
             {p.name}
           </option>
