@@ -42,6 +42,13 @@ export function maximise(objective: Objective, start: number[], options: Maximis
     if (newton) {
       const decrement = newton.reduce((s, d, i) => s + d * current.gradient[i], 0) / 2;
       if (decrement < tolerance) {
+        // One last full Newton step: near the maximum it squares the remaining error.
+        const candidate = theta.map((t, i) => t + newton[i]);
+        const next = objective.derivatives(candidate);
+        if (Number.isFinite(next.value) && next.value >= current.value - 1e-12 * Math.abs(current.value)) {
+          theta = candidate;
+          current = next;
+        }
         converged = true;
         break;
       }
