@@ -184,10 +184,17 @@ export function analyseHitMiss(data: HitMissObservation[], options: HitMissOptio
  * where the deviance 2(ℓ̂ − ℓ_p(θ)) reaches the χ²₁ critical value. Returns null when it never does.
  */
 function profileBound(link: Link, xs: number[], hits: boolean[], maxLogLik: number, beta1Hat: number) {
+  /** The β1-score of ℓ(q + β1·(x − θ)) and its derivative. */
   const score = (q: number, theta: number, beta1: number) => {
     let d1 = 0;
-    for (let i = 0; i < xs.length; i++) d1 += contribution(link, hits[i], q + beta1 * (xs[i] - theta)).d1 * (xs[i] - theta);
-    return d1;
+    let d2 = 0;
+    for (let i = 0; i < xs.length; i++) {
+      const u = xs[i] - theta;
+      const c = contribution(link, hits[i], q + beta1 * u);
+      d1 += c.d1 * u;
+      d2 += c.d2 * u * u;
+    }
+    return { d1, d2 };
   };
   const logLik = (q: number, theta: number, beta1: number) => {
     let l = 0;
@@ -195,12 +202,28 @@ function profileBound(link: Link, xs: number[], hits: boolean[], maxLogLik: numb
     return l;
   };
   // ℓ is concave in β1 for both links, so its maximum over β1 > 0 is at β1 → 0 when the score
-  // there is not positive, and otherwise at the single root of the score.
+  // there is not positive, and otherwise at the single root of the score: Newton's method kept
+  // inside a bracket that shrinks at every step (bisection when Newton would leave it).
+  // Successive calls move θ a little, so the last solution is a good start for the next.
+  let warm = beta1Hat;
   const profileLogLik = (q: number, theta: number) => {
-    if (score(q, theta, 0) <= 0) return logLik(q, theta, 0);
-    let hi = Math.max(beta1Hat, 1e-3);
-    for (let k = 0; score(q, theta, hi) > 0 && k < 200; k++) hi *= 2;
-    const beta1 = findRoot((b) => score(q, theta, b), 0, hi, 1e-12);
+    if (score(q, theta, 0).d1 <= 0) return logLik(q, theta, 0);
+    let lo = 0;
+    let hi = Math.max(2 * warm, 1e-3);
+    for (let k = 0; score(q, theta, hi).d1 > 0 && k < 200; k++) [lo, hi] = [hi, hi * 2];
+    // An error of ε in β1 changes ℓ by O(ε²): 1e-10 relative is far below what the bound needs.
+    let beta1 = warm > lo && warm < hi ? warm : (lo + hi) / 2;
+    for (let k = 0; k < 100; k++) {
+      const { d1, d2 } = score(q, theta, beta1);
+      if (d1 > 0) lo = beta1;
+      else hi = beta1;
+      const newton = d2 < 0 ? beta1 - d1 / d2 : NaN;
+      const next = newton > lo && newton < hi ? newton : (lo + hi) / 2;
+      const done = Math.abs(next - beta1) < 1e-10 * beta1 || hi - lo < 1e-12;
+      beta1 = next;
+      if (done) break;
+    }
+    warm = beta1;
     return logLik(q, theta, beta1);
   };
   const span = Math.max(...xs) - Math.min(...xs);
