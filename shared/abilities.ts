@@ -22,6 +22,7 @@ export type SubjectName =
   | 'Dashboard'
   | 'Report'
   | 'Inspection'
+  | 'Demonstration'
   | 'all';
 
 export type CrudAction = 'manage' | 'read' | 'create' | 'update' | 'approve' | 'unlock' | 'verify' | 'supersede' | 'export';
@@ -78,6 +79,7 @@ const READABLE: SubjectName[] = [
   'Area',
   'Policy',
   'Inspection',
+  'Demonstration',
 ];
 
 const OWNER_ACTION_EVENTS: ActionEvent[] = ['START', 'SUBMIT_PLAN', 'SUBMIT', 'REQUEST_EXTENSION'];
@@ -134,6 +136,8 @@ function level3Rules(builder: Builder, user: AbilityUser) {
   can('approve', 'Technique', { state: 'draft' });
   can('create', 'Evidence', { recordType: 'technique' });
   can(['create', 'update'], 'Inspection');
+  // Capability demonstrations: recorded, analysed and accepted (signed) by a Level 3.
+  can(['create', 'update', 'approve'], 'Demonstration');
   actionOwnerRules(builder, user);
 }
 
