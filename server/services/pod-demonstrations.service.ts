@@ -230,11 +230,11 @@ export async function listDemonstrations(query: { techniqueRevisionId?: number }
   return { items: await Promise.all(rows.map(presentDemonstration)) };
 }
 
-/** The latest accepted demonstration of each size dimension of a revision: the facts a checklist rule would read. */
+/** The accepted demonstrations of a revision: the facts the `demonstrated-capability` rule reads (`options.demonstrations`). */
 export async function acceptedDemonstrationFacts(techniqueRevisionId: number) {
   const rows = await PodDemonstration.findAll({ where: { techniqueRevisionId, state: 'accepted' }, order: [['acceptedAt', 'DESC']] });
   return rows.map((row) => {
     const analysis = row.analysis as { a9095Mm?: number | null } | null;
-    return { id: row.id, sizeDimension: row.sizeDimension, a9095Mm: analysis?.a9095Mm ?? null, acceptedAt: row.acceptedAt!.toISOString() };
+    return { id: row.id, title: row.title, sizeDimension: row.sizeDimension, a9095Mm: analysis?.a9095Mm ?? null, acceptedAt: row.acceptedAt!.toISOString() };
   });
 }

@@ -130,6 +130,12 @@ describe('capability demonstrations', () => {
     const second = await recordAndAnalyse(level3);
     const acceptedSecond = await level3.post(`/api/pod-demonstrations/${second.id}/acceptance`).send({ version: second.version, password: TEST_PASSWORD });
     expect(acceptedSecond.status).toBe(200);
+    // The technique's checklist now judges each expected flaw's length by the accepted demonstration.
+    const checklist = await level3.agent.get(`/api/techniques/${fixture.technique.id}/checklist?revision=B`);
+    expect(checklist.status).toBe(200);
+    const podResults = checklist.body.output.results.filter((r: { rule: string }) => r.rule === 'demonstrated-capability');
+    expect(podResults.length).toBeGreaterThan(0);
+    for (const result of podResults) expect(result.values).toMatchObject({ dimension: 'length', demonstrationId: second.id, a9095Mm: acceptedSecond.body.analysis.a9095Mm });
     expect(await PodDemonstration.findByPk(first.id)).toMatchObject({ state: 'superseded', supersededById: second.id });
     const trail = await TrailEntry.findAll({ where: { recordType: 'pod_demonstration', recordId: String(first.id) }, order: [['seq', 'ASC']] });
     expect(trail.map((e) => e.event)).toEqual(['POD_DEMONSTRATION_RECORDED', 'POD_ANALYSED', 'POD_DEMONSTRATION_ACCEPTED', 'POD_DEMONSTRATION_SUPERSEDED']);
