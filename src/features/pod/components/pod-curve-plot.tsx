@@ -30,9 +30,9 @@ export function PodCurvePlot({ curve, marks, dimension, animate = false }: { cur
           <Legend verticalAlign="top" />
           <Line data={fitted} dataKey="pod" name="POD (fitted)" stroke="#1f6f78" strokeWidth={2} dot={false} isAnimationActive={animate} />
           <Line data={bound} dataKey="pod" name="95 % confidence bound" stroke="#c0652c" strokeDasharray="6 3" dot={false} isAnimationActive={animate} />
-          <ReferenceLine x={marks.a50Mm} stroke="#6b4c9a" strokeDasharray="2 3" label={{ value: 'a50', position: 'top' }} />
-          <ReferenceLine x={marks.a90Mm} stroke="#1f6f78" strokeDasharray="2 3" label={{ value: 'a90', position: 'top' }} />
-          {marks.a9095Mm !== null && <ReferenceLine x={marks.a9095Mm} stroke="#c0652c" label={{ value: 'a90/95', position: 'top' }} />}
+          <ReferenceLine x={marks.a50Mm} stroke="#6b4c9a" strokeDasharray="2 3" label={{ value: 'a50', position: 'insideBottomLeft' }} />
+          <ReferenceLine x={marks.a90Mm} stroke="#1f6f78" strokeDasharray="2 3" label={{ value: 'a90', position: 'insideBottomLeft' }} />
+          {marks.a9095Mm !== null && <ReferenceLine x={marks.a9095Mm} stroke="#c0652c" label={{ value: 'a90/95', position: 'insideBottomRight' }} />}
         </LineChart>
       </ResponsiveContainer>
       <figcaption className="text-xs text-ink-soft">
