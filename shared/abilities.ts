@@ -23,6 +23,7 @@ export type SubjectName =
   | 'Dashboard'
   | 'Report'
   | 'Inspection'
+  | 'Demonstration'
   | 'all';
 
 export type CrudAction = 'manage' | 'read' | 'create' | 'update' | 'approve' | 'unlock' | 'verify' | 'supersede' | 'export';
@@ -79,6 +80,7 @@ const READABLE: SubjectName[] = [
   'Area',
   'Policy',
   'Inspection',
+  'Demonstration',
 ];
 
 const OWNER_ACTION_EVENTS: ActionEvent[] = ['START', 'SUBMIT_PLAN', 'SUBMIT', 'REQUEST_EXTENSION'];
@@ -137,6 +139,8 @@ function level3Rules(builder: Builder, user: AbilityUser) {
   can('create', 'Evidence', { recordType: 'technique' });
   // A Level 3 corrects any inspection; records new ones as their own inspector (actionOwnerRules).
   can('update', 'Inspection');
+  // Capability demonstrations: recorded, analysed and accepted (signed) by a Level 3.
+  can(['create', 'update', 'approve'], 'Demonstration');
   actionOwnerRules(builder, user);
 }
 

@@ -25,6 +25,7 @@ import { CaughtMail, initCaughtMail } from './caught-mail';
 import { Inspection, initInspection } from './inspection';
 import { ExtentRun, initExtentRun } from './extent-run';
 import { ContainmentDecision, initContainmentDecision } from './containment-decision';
+import { PodDemonstration, initPodDemonstration } from './pod-demonstration';
 
 export { Area, User, RoleAssignment, TrailEntry, Session };
 export { Certification, Equipment, ReferenceNotch, TechniqueEquipment, TechniquePerformer };
@@ -34,6 +35,7 @@ export type { TrailChanges, OutboxStatus };
 export { Audit, ChecklistRun, Finding, CorrectiveAction, Signature };
 export type { AuditScopeTechnique };
 export { Inspection, ExtentRun, ContainmentDecision };
+export { PodDemonstration };
 
 let initialisedFor: Sequelize | undefined;
 
@@ -79,6 +81,8 @@ export function initModels(sequelize: Sequelize): void {
 
   initWorkflowModels();
   initImpactModels();
+  initPodDemonstration(sequelize);
+  PodDemonstration.belongsTo(TechniqueRevision, { as: 'revision', foreignKey: 'techniqueRevisionId' });
 }
 
 /** Audits, checklist runs, findings, corrective actions and signatures (the workflow records). */

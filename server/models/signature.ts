@@ -3,7 +3,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 /** An electronic signature: who signed what, meaning what, when, and the SHA-256 of the content they signed. */
 export class Signature extends Model<InferAttributes<Signature>, InferCreationAttributes<Signature>> {
   declare id: CreationOptional<number>;
-  declare recordType: 'audit' | 'finding' | 'action';
+  declare recordType: 'audit' | 'finding' | 'action' | 'demonstration';
   declare recordId: number;
   declare event: string;
   declare signerId: number;

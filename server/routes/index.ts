@@ -21,7 +21,8 @@ import { actionRoutes } from './actions.routes';
 import { homeRoutes } from './home.routes';
 import { inspectionRoutes } from './inspections.routes';
 import { impactRoutes } from './impact.routes';
+import { podDemonstrationRoutes } from './pod-demonstrations.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, notificationRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, notificationRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes, podDemonstrationRoutes];

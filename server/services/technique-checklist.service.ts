@@ -8,6 +8,7 @@ import { AppError, notFound } from '../lib/app-error';
 import { loadOrganisationPolicy } from './policy.service';
 import { evaluateContent, parseTechniqueContent } from './technique-evaluation';
 import { registerFactsForTechnique } from './register-facts';
+import { acceptedDemonstrationFacts } from './pod-demonstrations.service';
 import { currentRevisionOf } from '../presenters/technique.presenter';
 
 export async function techniqueChecklist(deps: AppDeps, id: number, revisionId?: string): Promise<TechniqueChecklistView> {
@@ -29,7 +30,8 @@ export async function techniqueChecklist(deps: AppDeps, id: number, revisionId?:
   });
   const registers = facts === undefined ? undefined : RegisterFactsSchema.parse(facts);
   const now = deps.clock.now();
-  const output = evaluateContent(content, policy, { registers, now });
+  const demonstrations = await acceptedDemonstrationFacts(revision.id);
+  const output = evaluateContent(content, policy, { registers, now, demonstrations });
   return {
     techniqueId: technique.id,
     code: technique.code,

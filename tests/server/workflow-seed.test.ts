@@ -78,4 +78,18 @@ describe('the demo workflow seed', () => {
     expect(Number(evidence[0].total)).toBeGreaterThan(0);
     expect(Number(evidence[0].stored)).toBe(Number(evidence[0].total));
   });
+
+  it('when the demo is seeded, then one accepted demonstration meets its claimed crack length and the other exceeds it', async () => {
+    const rows = await sequelize.query<{ title: string; state: string; analysis: string | Record<string, unknown>; signature_id: number | null }>(
+      'SELECT title, state, analysis, signature_id FROM pod_demonstrations ORDER BY id',
+      { type: QueryTypes.SELECT },
+    );
+    expect(rows.map((row) => row.state)).toEqual(['accepted', 'accepted']);
+    for (const row of rows) expect(row.signature_id).not.toBeNull();
+    const a9095 = rows.map((row) => (typeof row.analysis === 'string' ? JSON.parse(row.analysis) : row.analysis).a9095Mm as number);
+    // TAC-ET-004 claims 3 mm cracks; TAC-ET-011 claims 0.76 mm (the demo techniques' flaw lengths).
+    expect(a9095[0]).toBeLessThan(3);
+    expect(a9095[1]).toBeGreaterThan(0.76);
+  });
 });
+

@@ -17,6 +17,7 @@ import { referenceStandard } from './rules/reference-standard';
 import { coilSize } from './rules/coil-size';
 import { personnel } from './rules/personnel';
 import { equipment } from './rules/equipment';
+import { demonstratedCapability, DemonstrationFactsSchema } from './rules/demonstrated-capability';
 
 /** In the order results are reported. `personnel` and `equipment` add results only when register facts are given. */
 const RULES: readonly Rule[] = [
@@ -32,6 +33,7 @@ const RULES: readonly Rule[] = [
   coilSize,
   personnel,
   equipment,
+  demonstratedCapability,
 ];
 
 // The organisation's policy usually arrives as the same object call after call:
@@ -54,7 +56,7 @@ function resolvePolicy(orgOverride: Partial<Policy> | undefined, techniqueOverri
 /** Evaluates a technique that has already passed `TechniqueSchema` (skips validation: the fast path). */
 export function evaluateParsedTechnique(technique: Technique, options: EvaluateOptions = {}): ChecklistOutput {
   const policy = resolvePolicy(options.policy, technique.policy);
-  const context = buildContext(technique, policy, options.registers, options.now ?? new Date());
+  const context = { ...buildContext(technique, policy, options.registers, options.now ?? new Date()), demonstrations: options.demonstrations };
   const results: RuleResult[] = [];
   for (const rule of RULES) rule(context, results);
   const summary: ChecklistSummary = { pass: 0, fail: 0, warn: 0, not_applicable: 0 };
@@ -110,6 +112,7 @@ export interface UncheckedEvaluateOptions {
   policy?: unknown;
   registers?: unknown;
   now?: Date;
+  demonstrations?: unknown;
 }
 
 type OptionsParse = { success: true; options: EvaluateOptions } | { success: false; error: z.ZodError; issues: TechniqueIssue[] };
@@ -141,6 +144,11 @@ function parseOptions(options: UncheckedEvaluateOptions | undefined): OptionsPar
     const registers = RegisterFactsSchema.safeParse(options.registers);
     if (!registers.success) return { success: false, error: registers.error, issues: toIssues(registers.error, 'options.registers') };
     parsedOptions.registers = registers.data as RegisterFacts;
+  }
+  if (options.demonstrations !== undefined && options.demonstrations !== null) {
+    const demonstrations = DemonstrationFactsSchema.safeParse(options.demonstrations);
+    if (!demonstrations.success) return { success: false, error: demonstrations.error, issues: toIssues(demonstrations.error, 'options.demonstrations') };
+    parsedOptions.demonstrations = demonstrations.data;
   }
   return { success: true, options: parsedOptions };
 }

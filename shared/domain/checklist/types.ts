@@ -3,6 +3,7 @@ import type { Policy } from '../policy';
 import type { Vec3 } from '../orientation';
 import type { Technique } from '../../schemas/technique';
 import type { RegisterFacts } from './registers';
+import type { DemonstrationFact } from './rules/demonstrated-capability';
 
 export const RULE_IDS = [
   'orientation-coverage',
@@ -17,6 +18,7 @@ export const RULE_IDS = [
   'coil-size',
   'personnel',
   'equipment',
+  'demonstrated-capability',
 ] as const;
 
 /**
@@ -89,6 +91,8 @@ export interface EvaluateOptions {
   registers?: RegisterFacts;
   /** The date certificates and calibrations are judged at (default: now). */
   now?: Date;
+  /** The revision's accepted capability demonstrations; the `demonstrated-capability` rule runs only when these are given. */
+  demonstrations?: DemonstrationFact[];
 }
 
 /** Everything a rule reads: the technique, the effective policy and the values worked out once. */
@@ -101,6 +105,7 @@ export interface RuleContext {
   flawNormals: Vec3[];
   /** "coil 1 (5 mm shielded surface)" for each coil, formatted once per evaluation. */
   coilNames: string[];
+  demonstrations?: DemonstrationFact[];
 }
 
 export type Rule = (context: RuleContext, results: RuleResult[]) => void;

@@ -14,6 +14,7 @@ import { ApproveButton } from '../../features/techniques/components/approve-butt
 import { downloadTechniqueFile, techniqueFileName } from '../../features/techniques/components/technique-file';
 import { TechniqueTimeline } from '../../features/techniques/components/technique-timeline';
 import { EvidencePanel } from '../../features/evidence/components/evidence-panel';
+import { PodSection } from '../../features/pod/components/pod-section';
 
 export function Component() {
   const id = Number(useParams().id);
@@ -76,6 +77,7 @@ export function Component() {
         <div className="flex min-w-0 flex-col gap-4">
           <TechniqueSummary technique={revision.content} />
           <EvidencePanel recordType="technique" recordId={view.id} />
+          <PodSection revisionId={revision.id} />
           <TechniqueTimeline id={view.id} />
         </div>
         <div className="min-w-0">

@@ -14,6 +14,7 @@ export const RULE_LABELS: Record<RuleId, string> = {
   'coil-size': 'Coil size against crack length',
   personnel: 'People',
   equipment: 'Equipment',
+  'demonstrated-capability': 'Demonstrated capability (POD)',
 };
 
 /** Status words and symbols: the colour is never the only signal. */
