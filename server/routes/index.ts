@@ -4,6 +4,7 @@ import type { AppDeps } from '../app-deps';
 import { userRoutes } from './users.routes';
 import { areaRoutes } from './areas.routes';
 import { trailRoutes } from './trail.routes';
+import { organisationRoutes } from './organisation.routes';
 import { evidenceRoutes } from './evidence.routes';
 import { mailboxRoutes } from './mailbox.routes';
 import { certificationRoutes } from './certifications.routes';
@@ -23,4 +24,4 @@ import { impactRoutes } from './impact.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes, organisationRoutes];

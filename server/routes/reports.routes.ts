@@ -18,6 +18,9 @@ import {
 } from '../services/record-export.service';
 import { renderAuditReport } from '../reports/audit-report.pdf';
 import { renderFindingRecord } from '../reports/finding-record.pdf';
+import { loadOrganisation } from '../services/organisation.service';
+import { loadIssuedFindings } from '../services/audit-issue-snapshot';
+import { presentTrail } from '../services/trail-read.service';
 
 const exporterOf = (res: Response): Exporter => ({ user: res.locals.user!, ability: res.locals.ability! });
 
@@ -40,13 +43,15 @@ export function reportRoutes(deps: AppDeps): Router {
   router.get('/audits/:id/report.pdf', requires.can('export', 'Audit'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const exported = await exportAudit(deps, exporterOf(res), id);
-    sendAttachment(res, await renderAuditReport(exported, deps.clock.now()), 'application/pdf', `audit-${id}-report.pdf`);
+    const [organisation, issuedFindings] = await Promise.all([loadOrganisation(deps), loadIssuedFindings(deps.sequelize, id)]);
+    sendAttachment(res, await renderAuditReport(exported, deps.clock.now(), { organisation, issuedFindings }), 'application/pdf', `audit-${id}-report.pdf`);
   });
 
   router.get('/findings/:id/record.pdf', requires.can('export', 'Finding'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const exported = await exportFinding(deps, exporterOf(res), id);
-    sendAttachment(res, await renderFindingRecord(exported, deps.clock.now()), 'application/pdf', `finding-${safe(exported.content.record.number)}.pdf`);
+    const [organisation, trail] = await Promise.all([loadOrganisation(deps), presentTrail(deps, exported.content.trail)]);
+    sendAttachment(res, await renderFindingRecord(exported, deps.clock.now(), { organisation, trail }), 'application/pdf', `finding-${safe(exported.content.record.number)}.pdf`);
   });
 
   router.get('/audits/:id/export.json', requires.can('export', 'Audit'), async (req, res) => {

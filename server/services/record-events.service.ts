@@ -26,6 +26,7 @@ import { CorrectiveAction, User } from '../models';
 import { verifyPassword } from '../auth/passwords';
 import { registerFailure } from '../auth/sign-in.service';
 import { appendTrail, recordTrail } from './trail.service';
+import { snapshotIssuedFindings } from './audit-issue-snapshot';
 import { recordSignature } from './signatures.service';
 import { runEffectsAfterCommit, runEffectsInTransaction, type EffectBatch } from './effects';
 import { loadFindingDuePolicy } from './workflow-policy';
@@ -127,6 +128,7 @@ async function persistTransition(
   model.set('machineVersion', recordMachines[kind].version);
   model.changed('snapshot' as keyof Model, true);
   await model.save({ transaction });
+  if (kind === 'audit' && event.type === 'ISSUE') await snapshotIssuedFindings(deps.sequelize, transaction, row.id, now);
   const changes = { ...fieldChanges, ...(args.extraTrail ?? {}) };
   await appendTrail(deps.sequelize, transaction, {
     userId: args.actorId,

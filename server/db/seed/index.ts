@@ -7,10 +7,11 @@ import { seedTechniques } from './techniques.seed';
 import { seedRegisters } from './registers.seed';
 import { seedInspections } from './inspections.seed';
 import { seedWorkflows } from './workflows.seed';
+import { seedOrganisation } from './organisation.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 import type { AppConfig } from '../../config/env';
 
-export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedInspections, seedWorkflows];
+export const seedSteps: SeedStep[] = [seedOrganisation, seedPeople, seedTechniques, seedRegisters, seedInspections, seedWorkflows];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);

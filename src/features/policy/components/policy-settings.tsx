@@ -7,6 +7,7 @@ import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { ErrorNotice } from '../../../components/ui/states';
+import { basisInWords } from '../../../../shared/labels';
 import { useUpdatePolicy } from '../api/policy';
 
 type Drafts = Partial<Record<PolicyKey, string>>;
@@ -66,7 +67,7 @@ export function PolicySettings({ view, canEdit }: { view: PolicyView; canEdit: b
                   <td className="px-3 py-2 whitespace-nowrap">
                     {setting.defaultValue} {setting.unit}
                   </td>
-                  <td className="px-3 py-2 text-xs text-ink-soft">{setting.basis}</td>
+                  <td className="px-3 py-2 text-xs text-ink-soft">{basisInWords(setting.basis)}</td>
                   <td className="px-3 py-2">
                     <div className="flex items-center gap-2">
                       <input
