@@ -93,6 +93,24 @@ function toAppError(error: unknown): AppError {
   return new AppError('Something went wrong on the server', { status: 500, code: 'internal', expose: false });
 }
 
+const isFieldIssue = (value: unknown): value is { path: string; message: string; label?: string } =>
+  typeof value === 'object' && value !== null && typeof (value as { path?: unknown }).path === 'string' && typeof (value as { message?: unknown }).message === 'string';
+
+/**
+ * Field issues thrown by services (AppError with `details: [{ path, message }]`)
+ * get their labels here too, and the generic "Some body fields are not valid"
+ * becomes the fields' own words: every 400 reads the same, wherever it was thrown.
+ */
+function inWords(error: AppError): { message: string; details: unknown } {
+  if (error.code !== 'invalid_input' || !Array.isArray(error.details) || !error.details.every(isFieldIssue)) return { message: error.message, details: error.details };
+  const details = error.details.map((item) => ({
+    ...item,
+    label: item.label ?? (item.path === '(body)' ? 'The request' : fieldPathLabel(item.path.split('.').map((part) => (/^\d+$/.test(part) ? Number(part) : part)))),
+  }));
+  const generic = /^Some (\w+ )?fields are not valid$/.test(error.message);
+  return { message: generic ? invalidInputMessage(details) : error.message, details };
+}
+
 const isRowIssue = (value: unknown): value is { row: number; field: string; message: string } =>
   typeof value === 'object' && value !== null && typeof (value as { row?: unknown }).row === 'number' && typeof (value as { message?: unknown }).message === 'string';
 
@@ -116,11 +134,12 @@ export function createErrorHandler(logger: Logger): ErrorRequestHandler {
       logger.error(`${req.method} ${req.path} → ${appError.status}`, appError.status === 500 ? error : appError.message);
     }
     res.locals.requirement = res.locals.requirement ?? 'error';
-    const details = withRowText(appError.details);
+    const invalid = inWords(appError);
+    const details = withRowText(invalid.details);
     const body: ErrorBody = {
       error: {
         code: appError.code,
-        message: appError.expose || appError.status < 500 ? appError.message : 'Something went wrong on the server',
+        message: appError.expose || appError.status < 500 ? invalid.message : 'Something went wrong on the server',
         ...(details !== undefined ? { details } : {}),
       },
     };

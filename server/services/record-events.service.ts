@@ -42,6 +42,7 @@ import {
 } from './workflow/record-kinds';
 import { assignFields, fieldsAfter } from './workflow/record-fields';
 import { refusalReason } from './workflow/refusal-reasons';
+import { stateLabel, trailEventLabel } from '../../shared/labels';
 import { retryOnDeadlock } from './workflow/retry';
 
 export interface EventActor {
@@ -178,7 +179,7 @@ async function sendServerEvent(
     extraTrail: { causedBy: `${causedBy.event} on ${TRAIL_TYPES[causedBy.kind]} ${causedBy.id}` },
   });
   if (!result) {
-    throw notAllowedNow(`The linked ${LABELS[kind]} cannot take ${event.type} while it is ${String(snapshot.value).replace(/_/g, ' ')}`);
+    throw notAllowedNow(`The linked ${LABELS[kind]} cannot take “${trailEventLabel(kind, event.type)}” while it is ${stateLabel(String(snapshot.value)).toLowerCase()}`);
   }
   return result.batch;
 }

@@ -128,7 +128,7 @@ describe('reports and exports', () => {
     const actionJson = await cast.quality.agent.get(`/api/actions/${action.id}/export.json`);
     expect(actionJson.status).toBe(200);
     expect(actionJson.body.content.trail.map((entry: { event: string }) => entry.event)).toContain('VERIFY');
-  });
+  }, 90_000);
 });
 
 const HEADINGS = ['Scope and criteria', 'Checklist results', 'Findings', 'Signatures', 'Finding', 'Containment', 'Extent of condition', 'Impact on past inspections', 'Corrective action', 'Evidence', 'Verification', 'Closure', 'Trail'];

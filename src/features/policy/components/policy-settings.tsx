@@ -44,7 +44,7 @@ export function PolicySettings({ view, canEdit }: { view: PolicyView; canEdit: b
       <div className="overflow-x-auto rounded-lg border border-ink/10 bg-white">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Policy settings of the organisation</caption>
-          <thead className="bg-lagoon-soft/60 text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="bg-lagoon-soft/60 text-xs tracking-wide text-ink-soft">
             <tr>
               <th scope="col" className="px-3 py-2">Setting</th>
               <th scope="col" className="px-3 py-2">Default</th>
