@@ -10,11 +10,4 @@ export const ROLES = [
 
 export type Role = (typeof ROLES)[number];
 
-export const ROLE_LABELS: Record<Role, string> = {
-  auditor: 'Auditor',
-  quality_manager: 'Quality manager',
-  accountable_manager: 'Accountable manager',
-  level3: 'ET Level 3',
-  technician: 'Technician',
-  admin: 'Administrator',
-};
+export { ROLE_LABELS } from './labels/roles';

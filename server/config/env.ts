@@ -1,5 +1,6 @@
 // The environment is parsed once, here, and nothing else reads process.env.
 import { z } from 'zod';
+import { isValidTimeZone } from '../../shared/format/dates';
 
 const booleanFromEnv = z
   .enum(['true', 'false', '1', '0'])
@@ -55,6 +56,13 @@ const EnvSchema = z.object({
   REMINDER_AUDIT_NOTICE_DAYS: z.coerce.number().int().min(1).max(90).default(7),
   MAIL_DIGEST_HOUR_UTC: z.coerce.number().int().min(0).max(23).default(6),
   LOG_LEVEL: z.enum(['silent', 'error', 'info', 'debug']).default('info'),
+  /** The organisation's name on reports when none is stored (the demo seed stores Tarnbrook's). */
+  ORG_NAME: z.string().trim().min(1).max(200).default('Whorl'),
+  /** IANA time zone in which dates and times are shown (signatures are stated in UTC as well). */
+  ORG_TIME_ZONE: z
+    .string()
+    .default('UTC')
+    .refine(isValidTimeZone, 'ORG_TIME_ZONE must be an IANA time zone such as Europe/London or UTC'),
 });
 
 export type Env = z.infer<typeof EnvSchema>;
@@ -83,6 +91,7 @@ export interface AppConfig {
   scheduler: { enabled: boolean; intervalSeconds: number };
   reminders: { dueSoonDays: number; escalateAfterDays: number; auditNoticeDays: number; digestHourUtc: number };
   logLevel: Env['LOG_LEVEL'];
+  organisation: { name: string; timeZone: string };
 }
 
 export function loadConfig(source: Record<string, string | undefined> = process.env): AppConfig {
@@ -137,5 +146,6 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       digestHourUtc: env.MAIL_DIGEST_HOUR_UTC,
     },
     logLevel: env.LOG_LEVEL,
+    organisation: { name: env.ORG_NAME, timeZone: env.ORG_TIME_ZONE },
   };
 }

@@ -1,7 +1,7 @@
 import type { Request } from 'express';
 import type { z } from 'zod';
 import { AppError } from './app-error';
-import { zodIssuesToDetails } from '../middlewares/error-handler';
+import { invalidInputMessage, zodIssuesToDetails } from '../middlewares/error-handler';
 import { illFormedTextError } from '../middlewares/text-input';
 import { findIllFormedText } from '../../shared/schemas/common';
 
@@ -11,11 +11,8 @@ function parseWith<S extends z.ZodType>(schema: S, value: unknown, where: string
   if (broken) throw illFormedTextError(broken);
   const result = schema.safeParse(value);
   if (!result.success) {
-    throw new AppError(`Some ${where} fields are not valid`, {
-      status: 400,
-      code: 'invalid_input',
-      details: zodIssuesToDetails(result.error),
-    });
+    const details = zodIssuesToDetails(result.error);
+    throw new AppError(invalidInputMessage(details, where), { status: 400, code: 'invalid_input', details });
   }
   return result.data;
 }

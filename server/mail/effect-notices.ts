@@ -4,6 +4,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import type { EffectContext } from '../services/effects';
 import type { Notice } from './notice';
+import { formatDate } from '../../shared/format/dates';
 import { actionFacts, auditFacts, findingFacts, usersWithRole, type ActionFacts, type AuditFacts, type FindingFacts } from './record-facts';
 
 type Loaded = { action?: ActionFacts; finding?: FindingFacts; audit?: AuditFacts };
@@ -25,8 +26,8 @@ function auditNotice(a: AuditFacts, kind: string, to: number[], subject: string,
 
 const ACTION_EFFECTS: Record<string, Builder> = {
   notifyOwnerAssigned: ({ action: a }) =>
-    a && actionNotice(a, 'action-assigned', [a.ownerId], `Corrective action ${a.number} is assigned to you (due ${a.dueDate})`, [
-      `You own corrective action ${a.number} for finding ${a.findingNumber}, “${a.findingTitle}”. It is due on ${a.dueDate}.`,
+    a && actionNotice(a, 'action-assigned', [a.ownerId], `Corrective action ${a.number} is assigned to you (due ${formatDate(a.dueDate)})`, [
+      `You own corrective action ${a.number} for finding ${a.findingNumber}, “${a.findingTitle}”. It is due on ${formatDate(a.dueDate)}.`,
       'Start by investigating the root cause. Your root cause and plan then go to the quality manager for review.',
     ]),
   notifyReviewerPlanSubmitted: async ({ action: a }, _c, people) =>
@@ -36,7 +37,7 @@ const ACTION_EFFECTS: Record<string, Builder> = {
     ]),
   notifyOwnerPlanApproved: ({ action: a }) =>
     a && actionNotice(a, 'action-plan-approved', [a.ownerId], `${a.number}: your plan is approved`, [
-      `The quality manager approved the plan of corrective action ${a.number}. Carry it out and upload the evidence; the action is due on ${a.dueDate}.`,
+      `The quality manager approved the plan of corrective action ${a.number}. Carry it out and upload the evidence; the action is due on ${formatDate(a.dueDate)}.`,
     ]),
   notifyOwnerPlanReturned: ({ action: a }, c) =>
     a && actionNotice(a, 'action-plan-returned', [a.ownerId], `${a.number}: your plan was returned`, [
@@ -60,18 +61,18 @@ const ACTION_EFFECTS: Record<string, Builder> = {
     ]),
   notifyReviewerExtensionRequested: async ({ action: a }, c, people) => {
     const pending = c.pendingExtension as { dueDate?: string; reason?: string } | null | undefined;
-    return a && actionNotice(a, 'action-extension-requested', await people('quality_manager'), `${a.number}: extension requested to ${pending?.dueDate ?? 'a later date'}`, [
-      `The owner of corrective action ${a.number} asks to move the due date from ${a.dueDate} to ${pending?.dueDate ?? 'a later date'}.`,
+    return a && actionNotice(a, 'action-extension-requested', await people('quality_manager'), `${a.number}: extension requested to ${pending?.dueDate ? formatDate(pending.dueDate) : 'a later date'}`, [
+      `The owner of corrective action ${a.number} asks to move the due date from ${formatDate(a.dueDate)} to ${pending?.dueDate ? formatDate(pending.dueDate) : 'a later date'}.`,
       `Reason: ${text(pending?.reason, 'see the record')}`,
     ]);
   },
   notifyOwnerExtensionApproved: ({ action: a }, c) =>
-    a && actionNotice(a, 'action-extension-approved', [a.ownerId], `${a.number}: extension approved, now due ${text(c.dueDate, a.dueDate)}`, [
-      `The quality manager approved your extension. Corrective action ${a.number} is now due on ${text(c.dueDate, a.dueDate)}.`,
+    a && actionNotice(a, 'action-extension-approved', [a.ownerId], `${a.number}: extension approved, now due ${formatDate(text(c.dueDate, a.dueDate))}`, [
+      `The quality manager approved your extension. Corrective action ${a.number} is now due on ${formatDate(text(c.dueDate, a.dueDate))}.`,
     ]),
   notifyOwnerExtensionRejected: ({ action: a }) =>
     a && actionNotice(a, 'action-extension-rejected', [a.ownerId], `${a.number}: extension not approved`, [
-      `The quality manager did not approve your extension. Corrective action ${a.number} stays due on ${a.dueDate}; the reason is on the record.`,
+      `The quality manager did not approve your extension. Corrective action ${a.number} stays due on ${formatDate(a.dueDate)}; the reason is on the record.`,
     ]),
 };
 
@@ -110,7 +111,7 @@ const AUDIT_EFFECTS: Record<string, Builder> = {
     ]),
   notifyAuditCancelled: ({ audit: a }, c) =>
     a && auditNotice(a, 'audit-cancelled', [a.leadAuditorId, ...(a.areaLeadId ? [a.areaLeadId] : [])], `Audit cancelled: ${a.title}`, [
-      `The audit “${a.title}” of ${a.areaName}, planned from ${a.plannedStart}, is cancelled.`,
+      `The audit “${a.title}” of ${a.areaName}, planned from ${formatDate(a.plannedStart)}, is cancelled.`,
       `Reason: ${text(c.cancelReason, 'see the record')}`,
     ]),
 };

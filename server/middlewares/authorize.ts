@@ -3,6 +3,7 @@
 // test walks the router to make sure none is left undeclared.
 import type { RequestHandler } from 'express';
 import type { AppAction, SubjectName } from '../../shared/abilities';
+import { forbiddenMessage } from '../../shared/labels/permissions';
 import { AppError } from '../lib/app-error';
 
 export const REQUIREMENT = Symbol.for('whorl.requirement');
@@ -42,7 +43,7 @@ export const requires = {
       const { user, ability } = res.locals;
       if (!user || !ability) return next(unauthenticated());
       if (!ability.can(action, subject)) {
-        return next(new AppError(`Your role may not ${action} ${subject}`, { status: 403, code: 'forbidden' }));
+        return next(new AppError(forbiddenMessage(action, subject), { status: 403, code: 'forbidden' }));
       }
       res.locals.requirement = 'can';
       next();

@@ -1,6 +1,6 @@
 import type { Equipment, ReferenceNotch } from '../models';
 import type { EquipmentView, NotchView } from '../../shared/schemas/equipment';
-import { calibrationFlag } from '../../shared/registers/flags';
+import { calibrationFlag, equipmentUseStatus } from '../../shared/registers/flags';
 
 const num = (value: string | number | null): number | null => (value === null ? null : Number(value));
 
@@ -32,5 +32,6 @@ export function presentEquipment(item: Equipment, now: Date): EquipmentView {
     notches: [...(item.notches ?? [])].sort((a, b) => a.position - b.position).map(presentNotch),
     version: item.version,
     calibration: calibrationFlag(item.calibrationDueOn, now),
+    useStatus: equipmentUseStatus(item.status, item.calibrationDueOn, now),
   };
 }

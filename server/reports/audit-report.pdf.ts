@@ -2,27 +2,23 @@
 // checklist results with their values and basis; the findings with class and
 // state; the issuing signature; page numbers, the record hash and the caution on every page.
 import type { AuditExport, ExportEnvelope } from '../services/record-export.service';
+import type { IssuedFindingsSnapshot } from '../services/audit-issue-snapshot';
 import type { ChecklistOutput } from '../../shared/domain/checklist';
 import type { Technique } from '../../shared/schemas/technique';
-import { CAUTION_TEXT, createReportDocument, fields, finishReport, heading, paragraph, signatureBlock, small, statusLine, subheading, title, utc, type Doc } from './pdf-document';
-import { formatHz, formatNumber, formatValues } from './format-values';
+import { VERDICT_LABELS, basisInWords, findingClassLabel, formatResultValues, ruleLabel, stateLabel } from '../../shared/labels';
+import { formatDate } from '../../shared/format/dates';
+import { at, createReportDocument, ensureSpace, fields, finishReport, heading, paragraph, signatureBlock, small, statusLine, subheading, title, type Doc, type ReportOrganisation } from './pdf-document';
+import { formatHz, formatNumber } from './format-values';
 
-const RULE_LABELS: Record<string, string> = {
-  'orientation-coverage': 'Orientation coverage',
-  'center-effect': 'Center effect',
-  'scan-index': 'Scan index',
-  'penetration-depth': 'Penetration depth',
-  'edge-effect': 'Edge effect',
-  'fill-factor': 'Fill factor',
-  'limit-frequency': 'Limit frequency',
-  ferromagnetic: 'Ferromagnetic material',
-  'reference-standard': 'Reference standard',
-  'coil-size': 'Coil size',
-  personnel: 'Personnel',
-  equipment: 'Equipment',
-};
+export { ruleLabel };
 
-export const ruleLabel = (rule: string) => RULE_LABELS[rule] ?? rule;
+export interface AuditReportExtras {
+  organisation: ReportOrganisation;
+  /** The trail's head when the report is printed, shown on its last line (compare with the trail and its anchors). */
+  trailHead?: { seq: number; hash: string };
+  /** The findings as they stood when the report was issued; null when not issued or issued before snapshots were kept. */
+  issuedFindings: IssuedFindingsSnapshot | null;
+}
 
 function computedValues(doc: Doc, output: ChecklistOutput, technique: Technique | undefined) {
   const v = output.values;
@@ -42,14 +38,14 @@ function computedValues(doc: Doc, output: ChecklistOutput, technique: Technique 
   small(doc, lines.join('\n'));
 }
 
-export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, generatedAt: Date, trailHead?: { seq: number; hash: string }): Promise<Buffer> {
+export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, generatedAt: Date, extras: AuditReportExtras): Promise<Buffer> {
   const { record: audit, runTechniques } = exported.content;
-  const doc = createReportDocument({ title: `Audit report: ${audit.title}`, subject: `Audit ${audit.id}` });
+  const doc = createReportDocument({ title: `Audit report: ${audit.title}`, subject: `Audit ${audit.id}`, organisation: extras.organisation });
   title(doc, 'Internal audit report', audit.title);
 
   const issued = audit.signatures.find((s) => s.event === 'ISSUE');
   if (!issued) {
-    paragraph(doc, `Not issued: this report shows the audit in state "${audit.state}". It becomes the audit report when a quality manager issues it with a signature.`, {
+    paragraph(doc, `Not issued: this report shows the audit as it stands (${stateLabel(audit.state)}). It becomes the audit report when a quality manager issues it with a signature.`, {
       colour: '#a15c00',
     });
     doc.moveDown(0.4);
@@ -57,12 +53,12 @@ export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, g
 
   heading(doc, 'Scope and criteria');
   fields(doc, [
-    ['Audit', `#${audit.id}, state ${audit.state}`],
+    ['Audit', `#${audit.id}, ${stateLabel(audit.state)}`],
     ['Area', audit.areaName],
     ['Lead auditor', audit.leadAuditor?.displayName],
-    ['Planned', `${audit.plannedStart} to ${audit.plannedEnd}`],
-    ['Issued', issued ? utc(issued.signedAt) : 'not yet'],
-    ['Closed', audit.closedAt ? utc(audit.closedAt) : null],
+    ['Planned', `${formatDate(audit.plannedStart)} to ${formatDate(audit.plannedEnd)}`],
+    ['Issued', issued ? at(doc, issued.signedAt) : 'not yet'],
+    ['Closed', audit.closedAt ? at(doc, audit.closedAt) : null],
   ]);
   subheading(doc, 'Techniques in scope');
   paragraph(doc, audit.scope.length ? audit.scope.map((item) => `• ${item.code} rev ${item.revision}: ${item.title}`).join('\n') : 'None recorded.');
@@ -74,39 +70,55 @@ export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, g
   // Oldest first in print: the order the auditor worked in.
   for (const run of [...audit.checklistRuns].reverse()) {
     const output = run.output as ChecklistOutput;
-    subheading(doc, `${run.techniqueCode} rev ${run.techniqueRevision}: ${output.verdict === 'conforms' ? 'conforms' : 'does not conform'}`);
+    subheading(doc, `${run.techniqueCode} rev ${run.techniqueRevision}: ${VERDICT_LABELS[output.verdict].toLowerCase()}`);
     small(
       doc,
-      `Run by ${run.runBy?.displayName ?? 'unknown'} at ${utc(run.runAt)} · ${output.summary.pass} pass, ${output.summary.fail} fail, ${output.summary.warn} warn, ${output.summary.not_applicable} not applicable`,
+      `Run by ${run.runBy?.displayName ?? 'unknown'} on ${at(doc, run.runAt)} · ${output.summary.pass} pass, ${output.summary.fail} fail, ${output.summary.warn} warning(s), ${output.summary.not_applicable} not applicable`,
     );
     computedValues(doc, output, runTechniques[String(run.id)]);
     doc.moveDown(0.3);
     output.results.forEach((result, index) => {
-      if (doc.y > doc.page.height - doc.page.margins.bottom - 50) doc.addPage();
+      ensureSpace(doc, 50);
       statusLine(doc, result.status, `${ruleLabel(result.rule)}${result.flaw ? ` · flaw ${result.flaw}` : ''}${result.coil !== undefined ? ` · coil ${result.coil + 1}` : ''}`);
       paragraph(doc, result.message, { size: 9.5 });
-      const values = formatValues(result.values as Record<string, unknown>);
+      const values = formatResultValues(result.values as Record<string, unknown>);
       if (values) small(doc, `Values: ${values}`);
-      small(doc, `Basis: ${result.basis}`);
+      small(doc, `Basis: ${basisInWords(result.basis)}`);
       const note = run.notes[String(index)];
       if (note) small(doc, `Auditor's note: ${note}`);
       doc.moveDown(0.3);
     });
   }
 
-  heading(doc, 'Findings');
-  if (audit.findings.length === 0) paragraph(doc, 'No findings were raised.');
-  for (const finding of audit.findings) {
-    paragraph(doc, `${finding.number}: ${finding.title}`);
-    small(doc, `Class: ${finding.class ?? 'not yet classified'} · State: ${finding.state}${finding.dueDate ? ` · Due ${finding.dueDate}` : ''}`);
-  }
+  findingsSection(doc, audit, issued !== undefined, extras.issuedFindings);
 
   heading(doc, 'Signatures');
   if (audit.signatures.length === 0) paragraph(doc, 'Not signed.');
   for (const signature of audit.signatures) signatureBlock(doc, signature);
 
-  heading(doc, 'Caution');
-  paragraph(doc, CAUTION_TEXT, { size: 9 });
+  return finishReport(doc, { recordLabel: `Audit report #${audit.id}`, sha256: exported.sha256, generatedAt, trailHead: extras.trailHead });
+}
 
-  return finishReport(doc, { recordLabel: `Audit report #${audit.id}`, sha256: exported.sha256, generatedAt, trailHead });
+type AuditFinding = AuditExport['record']['findings'][number];
+
+/**
+ * An issued report prints its findings as they stood at issue; an audit issued
+ * before those were kept says so, and prints today's states as today's.
+ */
+function findingsSection(doc: Doc, audit: AuditExport['record'], isIssued: boolean, snapshot: IssuedFindingsSnapshot | null) {
+  heading(doc, 'Findings');
+  const line = (finding: { number: string; title: string; class: string | null; state: string; dueDate: string | null }) => {
+    paragraph(doc, `${finding.number}: ${finding.title}`);
+    small(doc, `Class: ${findingClassLabel(finding.class)} · State: ${stateLabel(finding.state)}${finding.dueDate ? ` · Due ${formatDate(finding.dueDate)}` : ''}`);
+  };
+  if (isIssued && snapshot) {
+    small(doc, `As they stood when the report was issued (${at(doc, snapshot.takenAt)}).`);
+    if (snapshot.findings.length === 0) paragraph(doc, 'No findings were raised.');
+    snapshot.findings.forEach(line);
+    return;
+  }
+  if (isIssued) small(doc, 'This report was issued before Whorl kept the findings as they stood at issue: the states below are those of today.');
+  else small(doc, 'The states below are those of today.');
+  if (audit.findings.length === 0) paragraph(doc, 'No findings were raised.');
+  audit.findings.forEach((finding: AuditFinding) => line(finding));
 }

@@ -2,10 +2,20 @@
 // impact worksheet, the corrective action (root cause, plan), the evidence with
 // hashes, verification, the closure signature and the record's trail.
 import type { EvidenceList, ExportEnvelope, FindingExport } from '../services/record-export.service';
-import { CAUTION_TEXT, createReportDocument, fields, finishReport, heading, mono, paragraph, signatureBlock, small, subheading, title, utc, type Doc } from './pdf-document';
-import { formatValues } from './format-values';
-import { ruleLabel } from './audit-report.pdf';
+import type { PresentedTrailEntryView } from '../../shared/schemas/trail';
+import { findingClassLabel, formatResultValues, rootCauseMethodLabel, ruleLabel, stateLabel } from '../../shared/labels';
+import { formatDate } from '../../shared/format/dates';
+import { changeLineText } from '../presenters/trail.presenter';
+import { at, createReportDocument, ensureSpace, fields, finishReport, heading, mono, paragraph, signatureBlock, small, subheading, title, type Doc, type ReportOrganisation } from './pdf-document';
 import { extentSection, impactSection } from './impact-sections.pdf';
+
+export interface FindingRecordExtras {
+  organisation: ReportOrganisation;
+  /** The trail's head when the report is printed, shown on its last line (compare with the trail and its anchors). */
+  trailHead?: { seq: number; hash: string };
+  /** The export's trail entries presented in words (trail-read.service presentTrail). */
+  trail: PresentedTrailEntryView[];
+}
 
 const size = (bytes: number) => (bytes >= 1_048_576 ? `${(bytes / 1_048_576).toFixed(1)} MB` : bytes >= 1024 ? `${Math.round(bytes / 1024)} kB` : `${bytes} B`);
 
@@ -16,46 +26,32 @@ function evidence(doc: Doc, label: string, list: EvidenceList | null) {
   if (list.items.length === 0) return paragraph(doc, 'No files.');
   for (const item of list.items) {
     paragraph(doc, `${item.fileName} (${item.mediaType}, ${size(item.sizeBytes)})`, { size: 9.5 });
-    small(doc, `Uploaded by ${item.uploadedBy.displayName} at ${utc(item.uploadedAt)}${item.superseded ? ` · superseded ${utc(item.superseded.at)}: ${item.superseded.reason}` : ''}`);
+    small(doc, `Uploaded by ${item.uploadedBy.displayName} on ${at(doc, item.uploadedAt)}${item.superseded ? ` · superseded ${at(doc, item.superseded.at)}: ${item.superseded.reason}` : ''}`);
     mono(doc, `SHA-256 ${item.sha256}`);
   }
 }
 
-function changesText(changes: unknown): string {
-  if (!changes || typeof changes !== 'object') return '';
-  const text = Object.entries(changes as Record<string, unknown>)
-    .map(([key, value]) => {
-      if (value && typeof value === 'object' && 'after' in (value as object)) {
-        const { before, after } = value as { before: unknown; after: unknown };
-        return `${key}: ${JSON.stringify(before)} → ${JSON.stringify(after)}`;
-      }
-      return `${key}: ${JSON.stringify(value)}`;
-    })
-    .join('; ');
-  return text.length > 600 ? `${text.slice(0, 600)}…` : text;
-}
-
-export async function renderFindingRecord(exported: ExportEnvelope<FindingExport>, generatedAt: Date, trailHead?: { seq: number; hash: string }): Promise<Buffer> {
-  const { record: finding, action, evidence: files, trail, extent, impact } = exported.content;
-  const doc = createReportDocument({ title: `Finding record ${finding.number}`, subject: finding.title });
+export async function renderFindingRecord(exported: ExportEnvelope<FindingExport>, generatedAt: Date, extras: FindingRecordExtras): Promise<Buffer> {
+  const { record: finding, action, evidence: files, extent, impact } = exported.content;
+  const doc = createReportDocument({ title: `Finding record ${finding.number}`, subject: finding.title, organisation: extras.organisation });
   title(doc, `Finding record ${finding.number}`, finding.title);
 
   heading(doc, 'Finding');
   fields(doc, [
-    ['State', finding.state],
-    ['Class', finding.class ?? 'not yet classified'],
+    ['State', stateLabel(finding.state)],
+    ['Class', findingClassLabel(finding.class)],
     ['Area', finding.areaName],
     ['Audit', finding.auditTitle ? `#${finding.auditId}: ${finding.auditTitle}` : null],
     ['Technique', finding.techniqueCode],
     ['Rule', ruleLabel(finding.rule)],
-    ['Raised by', `${finding.author?.displayName ?? 'unknown'} at ${utc(finding.createdAt)}`],
-    ['Corrective action due', finding.dueDate],
+    ['Raised by', `${finding.author?.displayName ?? 'unknown'} on ${at(doc, finding.createdAt)}`],
+    ['Corrective action due', finding.dueDate ? formatDate(finding.dueDate) : null],
   ]);
   subheading(doc, 'Requirement');
   paragraph(doc, finding.requirement);
   subheading(doc, 'Objective evidence');
   paragraph(doc, finding.objectiveEvidence);
-  const values = formatValues(finding.resultValues);
+  const values = formatResultValues(finding.resultValues);
   if (values) small(doc, `Checklist values: ${values}`);
   if (finding.classificationNote) {
     subheading(doc, 'Classification note');
@@ -68,7 +64,7 @@ export async function renderFindingRecord(exported: ExportEnvelope<FindingExport
 
   heading(doc, 'Containment');
   paragraph(doc, finding.containment ?? (finding.class === 'major' ? 'Not yet recorded.' : 'Not required for this class.'));
-  if (finding.containmentDueDate) small(doc, `Containment due ${finding.containmentDueDate}`);
+  if (finding.containmentDueDate) small(doc, `Containment due ${formatDate(finding.containmentDueDate)}`);
   extentSection(doc, extent);
   impactSection(doc, impact);
 
@@ -76,21 +72,21 @@ export async function renderFindingRecord(exported: ExportEnvelope<FindingExport
   if (!action) paragraph(doc, 'No corrective action assigned.');
   else {
     fields(doc, [
-      ['Action', `${action.number}, state ${action.state}`],
+      ['Action', `${action.number}, ${stateLabel(action.state)}`],
       ['Owner', action.owner?.displayName],
-      ['Due', action.dueDate],
-      ['Root-cause method', action.method],
-      ['Verified', action.verifiedAt ? utc(action.verifiedAt) : null],
+      ['Due', action.dueDate ? formatDate(action.dueDate) : null],
+      ['Root-cause method', action.method ? rootCauseMethodLabel(action.method) : null],
+      ['Verified', action.verifiedAt ? at(doc, action.verifiedAt) : null],
     ]);
     subheading(doc, 'Root cause');
     paragraph(doc, action.rootCause ?? 'Not yet submitted.');
     subheading(doc, 'Plan');
-    paragraph(doc, action.plan.length ? action.plan.map((item, i) => `${i + 1}. ${item.description} (due ${item.dueDate})`).join('\n') : 'Not yet submitted.');
+    paragraph(doc, action.plan.length ? action.plan.map((item, i) => `${i + 1}. ${item.description} (due ${formatDate(item.dueDate)})`).join('\n') : 'Not yet submitted.');
     if (action.submissionSummary) {
       subheading(doc, 'What was done');
       paragraph(doc, action.submissionSummary);
     }
-    if (action.pendingExtension) small(doc, `Extension requested to ${action.pendingExtension.dueDate}: ${action.pendingExtension.reason}`);
+    if (action.pendingExtension) small(doc, `Extension requested to ${formatDate(action.pendingExtension.dueDate)}: ${action.pendingExtension.reason}`);
   }
 
   heading(doc, 'Evidence');
@@ -117,14 +113,12 @@ export async function renderFindingRecord(exported: ExportEnvelope<FindingExport
   if (finding.closureNote && closure.length) small(doc, `Closure note: ${finding.closureNote}`);
 
   heading(doc, 'Trail');
-  for (const entry of trail) {
-    if (doc.y > doc.page.height - doc.page.margins.bottom - 30) doc.addPage();
-    paragraph(doc, `#${entry.seq} ${utc(entry.at)} · ${entry.recordType} ${entry.recordId} · ${entry.event} · ${entry.userName ?? 'system'}`, { size: 8.5 });
-    const changes = changesText(entry.changes);
-    if (changes) small(doc, changes);
+  for (const entry of extras.trail) {
+    ensureSpace(doc, 30);
+    paragraph(doc, `${at(doc, entry.at)} · ${entry.recordLabel} · ${entry.eventLabel} · ${entry.userName ?? 'Whorl (automatic)'} · entry ${entry.seq}`, { size: 8.5 });
+    const details = entry.details.map(changeLineText).join('; ');
+    if (details) small(doc, details.length > 800 ? `${details.slice(0, 800)}…` : details);
   }
 
-  heading(doc, 'Caution');
-  paragraph(doc, CAUTION_TEXT, { size: 9 });
-  return finishReport(doc, { recordLabel: `Finding record ${finding.number}`, sha256: exported.sha256, generatedAt, trailHead });
+  return finishReport(doc, { recordLabel: `Finding record ${finding.number}`, sha256: exported.sha256, generatedAt, trailHead: extras.trailHead });
 }

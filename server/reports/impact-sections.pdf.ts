@@ -1,20 +1,21 @@
 // The finding record's extent-of-condition and impact sections: the techniques
 // found with the same weakness, and the containment worksheet row by row.
 import type { FindingFamilyView } from '../../shared/schemas/extent';
-import { CONTAINMENT_DECISION_LABELS, type FindingImpactView } from '../../shared/schemas/impact';
-import { INSPECTION_RESULT_LABELS } from '../../shared/schemas/inspection';
-import { fields, heading, paragraph, small, subheading, utc, type Doc } from './pdf-document';
+import type { FindingImpactView } from '../../shared/schemas/impact';
+import { COIL_TYPE_LABELS, CONTAINMENT_DECISION_LABELS, INSPECTION_RESULT_LABELS, ORIENTATION_LABELS, findingClassLabel, ruleLabel, stateLabel } from '../../shared/labels';
+import { formatDate } from '../../shared/format/dates';
+import { at, fields, heading, paragraph, small, subheading, type Doc } from './pdf-document';
 
 export function extentSection(doc: Doc, extent: FindingFamilyView) {
   heading(doc, 'Extent of condition');
-  if (extent.extentOf) paragraph(doc, `Raised from the extent of condition of ${extent.extentOf.number}: ${extent.extentOf.title} (${extent.extentOf.state}).`);
+  if (extent.extentOf) paragraph(doc, `Raised from the extent of condition of ${extent.extentOf.number}: ${extent.extentOf.title} (${stateLabel(extent.extentOf.state)}).`);
   const run = extent.latestRun;
   if (!run) paragraph(doc, extent.extentPossible ? 'No extent run recorded.' : (extent.extentUnavailableReason ?? 'Not applicable.'));
   else {
     fields(doc, [
-      ['Latest run', `#${run.id} by ${run.runBy.name} at ${utc(run.runAt)}`],
-      ['Rule', run.rule],
-      ['Flaw orientation / coil type', `${run.flawOrientation ?? '—'} / ${run.coilType ?? '—'}`],
+      ['Latest run', `#${run.id} by ${run.runBy.name} on ${at(doc, run.runAt)}`],
+      ['Rule', ruleLabel(run.rule)],
+      ['Flaw orientation / coil type', `${run.flawOrientation ? ORIENTATION_LABELS[run.flawOrientation as keyof typeof ORIENTATION_LABELS] ?? run.flawOrientation : '—'} / ${run.coilType ? COIL_TYPE_LABELS[run.coilType as keyof typeof COIL_TYPE_LABELS] ?? run.coilType : '—'}`],
       ['Engine / policy version', `${run.engineVersion} / ${run.policyVersion}`],
       ['Approved techniques evaluated', run.evaluatedCount],
     ]);
@@ -28,7 +29,7 @@ export function extentSection(doc: Doc, extent: FindingFamilyView) {
   if (extent.members.length) {
     subheading(doc, 'Linked findings');
     for (const member of extent.members) {
-      paragraph(doc, `${member.number} ${member.techniqueCode ?? ''}: ${member.state}, class ${member.class ?? `proposed ${member.proposedClass ?? '—'}`}`, { size: 9.5 });
+      paragraph(doc, `${member.number} ${member.techniqueCode ?? ''}: ${stateLabel(member.state)}, class ${member.class ? findingClassLabel(member.class) : `proposed ${findingClassLabel(member.proposedClass, '—')}`}`, { size: 9.5 });
     }
   }
 }
@@ -40,12 +41,12 @@ export function impactSection(doc: Doc, impact: FindingImpactView) {
     return;
   }
   for (const revision of impact.revisions) {
-    small(doc, `Revision ${revision.revision} (approved ${utc(revision.approvedAt)}): inspections from ${revision.from}; ${revision.reason}.`);
+    small(doc, `Revision ${revision.revision} (approved ${at(doc, revision.approvedAt)}): inspections from ${formatDate(revision.from)}; ${revision.reason}.`);
   }
   fields(doc, [
     ['Inspections in doubt', impact.total],
     ['Without a decision', impact.undecided],
-    ['Worksheet starts', impact.since ?? 'at each revision’s approval'],
+    ['Worksheet starts', impact.since ? formatDate(impact.since) : 'at each revision’s approval'],
   ]);
   if (!impact.rows.length) return;
   subheading(doc, 'By customer and part number');
@@ -54,9 +55,9 @@ export function impactSection(doc: Doc, impact: FindingImpactView) {
   for (const { inspection, decision } of impact.rows) {
     paragraph(
       doc,
-      `${inspection.performedOn} · ${inspection.customer} · ${inspection.partNumber} s/n ${inspection.serialNumber} · ${inspection.workOrder} · ${INSPECTION_RESULT_LABELS[inspection.result]} → ${decision ? CONTAINMENT_DECISION_LABELS[decision.decision] : 'UNDECIDED'}`,
+      `${formatDate(inspection.performedOn)} · ${inspection.customer} · ${inspection.partNumber} s/n ${inspection.serialNumber} · ${inspection.workOrder} · ${INSPECTION_RESULT_LABELS[inspection.result]} → ${decision ? CONTAINMENT_DECISION_LABELS[decision.decision] : 'no decision yet'}`,
       { size: 8.5 },
     );
-    if (decision) small(doc, `${decision.reason} (${decision.decidedBy.name}, ${utc(decision.decidedAt)})`);
+    if (decision) small(doc, `${decision.reason} (${decision.decidedBy.name}, ${at(doc, decision.decidedAt)})`);
   }
 }

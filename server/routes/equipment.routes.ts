@@ -5,14 +5,13 @@ import { parseBody, parseParams, parseQuery } from '../lib/validate';
 import { IdParamSchema } from '../../shared/schemas/common';
 import {
   EQUIPMENT_KIND_LABELS,
-  EQUIPMENT_STATUS_LABELS,
   EquipmentCreateSchema,
   EquipmentListQuerySchema,
   EquipmentUpdateSchema,
   TechniqueLinksSchema,
   type EquipmentView,
 } from '../../shared/schemas/equipment';
-import { CALIBRATION_STATUS_LABELS } from '../../shared/registers/flags';
+import { CALIBRATION_STATUS_LABELS, EQUIPMENT_USE_STATUS_LABELS } from '../../shared/registers/flags';
 import { createEquipment, getEquipment, listEquipment, updateEquipment } from '../services/equipment.service';
 import { getTechniqueLinks, setTechniqueLinks } from '../services/technique-links.service';
 import { collectAllPages, sendCsv, type CsvColumn } from '../lib/csv';
@@ -29,7 +28,7 @@ export const EQUIPMENT_CSV_COLUMNS: CsvColumn<EquipmentView>[] = [
   { header: 'Description', value: (e) => e.description },
   { header: 'Model', value: (e) => e.model },
   { header: 'Serial number', value: (e) => e.serialNumber },
-  { header: 'Status', value: (e) => EQUIPMENT_STATUS_LABELS[e.status] },
+  { header: 'Status', value: (e) => EQUIPMENT_USE_STATUS_LABELS[e.useStatus] },
   { header: 'Calibrated', value: (e) => e.calibratedOn },
   { header: 'Calibration due', value: (e) => e.calibrationDueOn },
   { header: 'Calibration status', value: (e) => CALIBRATION_STATUS_LABELS[e.calibration.status] },

@@ -4,6 +4,7 @@ import type { AppDeps } from '../app-deps';
 import { userRoutes } from './users.routes';
 import { areaRoutes } from './areas.routes';
 import { trailRoutes } from './trail.routes';
+import { organisationRoutes } from './organisation.routes';
 import { evidenceRoutes } from './evidence.routes';
 import { mailboxRoutes } from './mailbox.routes';
 import { notificationRoutes } from './notifications.routes';
@@ -25,4 +26,4 @@ import { podDemonstrationRoutes } from './pod-demonstrations.routes';
 
 export type RouteFactory = (deps: AppDeps) => Router;
 
-export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, evidenceRoutes, mailboxRoutes, notificationRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes, podDemonstrationRoutes];
+export const featureRoutes: RouteFactory[] = [userRoutes, areaRoutes, trailRoutes, organisationRoutes, evidenceRoutes, mailboxRoutes, notificationRoutes, certificationRoutes, equipmentRoutes, dashboardRoutes, reportRoutes, listExportRoutes, techniqueRoutes, policyRoutes, materialRoutes, auditRoutes, findingRoutes, actionRoutes, homeRoutes, inspectionRoutes, impactRoutes, podDemonstrationRoutes];

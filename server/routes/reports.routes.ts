@@ -19,6 +19,9 @@ import {
 import { renderAuditReport } from '../reports/audit-report.pdf';
 import { renderFindingRecord } from '../reports/finding-record.pdf';
 import { readTrailHead } from '../services/trail.service';
+import { loadOrganisation } from '../services/organisation.service';
+import { loadIssuedFindings } from '../services/audit-issue-snapshot';
+import { presentTrail } from '../services/trail-read.service';
 
 const exporterOf = (res: Response): Exporter => ({ user: res.locals.user!, ability: res.locals.ability! });
 
@@ -41,13 +44,15 @@ export function reportRoutes(deps: AppDeps): Router {
   router.get('/audits/:id/report.pdf', requires.can('export', 'Audit'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const exported = await exportAudit(deps, exporterOf(res), id);
-    sendAttachment(res, await renderAuditReport(exported, deps.clock.now(), await readTrailHead(deps.sequelize)), 'application/pdf', `audit-${id}-report.pdf`);
+    const [organisation, issuedFindings, trailHead] = await Promise.all([loadOrganisation(deps), loadIssuedFindings(deps.sequelize, id), readTrailHead(deps.sequelize)]);
+    sendAttachment(res, await renderAuditReport(exported, deps.clock.now(), { organisation, issuedFindings, trailHead }), 'application/pdf', `audit-${id}-report.pdf`);
   });
 
   router.get('/findings/:id/record.pdf', requires.can('export', 'Finding'), async (req, res) => {
     const { id } = parseParams(IdParamSchema, req);
     const exported = await exportFinding(deps, exporterOf(res), id);
-    sendAttachment(res, await renderFindingRecord(exported, deps.clock.now(), await readTrailHead(deps.sequelize)), 'application/pdf', `finding-${safe(exported.content.record.number)}.pdf`);
+    const [organisation, trail, trailHead] = await Promise.all([loadOrganisation(deps), presentTrail(deps, exported.content.trail), readTrailHead(deps.sequelize)]);
+    sendAttachment(res, await renderFindingRecord(exported, deps.clock.now(), { organisation, trail, trailHead }), 'application/pdf', `finding-${safe(exported.content.record.number)}.pdf`);
   });
 
   router.get('/audits/:id/export.json', requires.can('export', 'Audit'), async (req, res) => {

@@ -21,6 +21,7 @@ import { runEffectsAfterCommit, runEffectsInTransaction, type EffectBatch } from
 import { presentAction, presentActionDetail } from '../presenters/action.presenter';
 import { todayIso } from '../presenters/workflow-refs';
 import { stateFilter } from './audits.service';
+import { stateLabel } from '../../shared/labels';
 import type { EventActor } from './record-events.service';
 
 const SORTABLE = ['number', 'dueDate', 'state', 'createdAt'] as const;
@@ -50,7 +51,7 @@ export async function assignAction(deps: AppDeps, actor: EventActor, input: Acti
       if (!finding) throw invalid('findingId', 'no such finding');
       if (finding.authorId === input.ownerId) throw forbidden('The finding’s author cannot own its corrective action');
       if (finding.state !== 'action_open') {
-        throw notAllowedNow(`A corrective action is assigned when the finding is waiting for one; ${finding.number} is ${finding.state.replace(/_/g, ' ')}`);
+        throw notAllowedNow(`A corrective action is assigned when the finding is waiting for one; ${finding.number} is ${stateLabel(finding.state).toLowerCase()}`);
       }
       const existing = await CorrectiveAction.findOne({ where: { findingId: finding.id }, attributes: ['id', 'number'], transaction });
       if (existing) throw notAllowedNow(`${finding.number} already has corrective action ${existing.number}`);

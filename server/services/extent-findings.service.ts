@@ -13,6 +13,7 @@ import { allocateRecordNumber } from './record-numbers.service';
 import { retryOnDeadlock } from './workflow/retry';
 import { NEW_FINDING_FIELDS } from './findings.service';
 import { mayAssessExtent } from './extent.service';
+import { ruleLabel } from '../../shared/labels';
 import type { EventActor } from './record-events.service';
 
 function invalid(path: string, message: string) {
@@ -80,10 +81,10 @@ export async function raiseExtentFindings(
             techniqueCode: entry.code,
             checklistRunId: null,
             resultIndex: null,
-            title: `${entry.code}: ${run.rule} (extent of ${original.number})`,
+            title: `${entry.code}: ${ruleLabel(run.rule)} (extent of ${original.number})`,
             rule: original.rule,
             requirement: original.requirement,
-            objectiveEvidence: `Extent-of-condition run ${run.id} from ${original.number} on ${run.runAt.toISOString().slice(0, 10)} (engine ${run.engineVersion}, policy version ${run.policyVersion}): ${entry.code} rev ${entry.revision} fails "${run.rule}". ${describeFailures(entry)}`,
+            objectiveEvidence: `Extent-of-condition run ${run.id} from ${original.number} on ${run.runAt.toISOString().slice(0, 10)} (engine ${run.engineVersion}, policy version ${run.policyVersion}): ${entry.code} rev ${entry.revision} fails “${ruleLabel(run.rule)}”. ${describeFailures(entry)}`,
             resultValues: entry.failures[0]?.values ?? null,
             ...NEW_FINDING_FIELDS,
             extentOfId: original.id,

@@ -18,6 +18,7 @@ import { retryOnDeadlock } from './workflow/retry';
 import { presentFinding, presentFindingDetail } from '../presenters/finding.presenter';
 import { todayIso } from '../presenters/workflow-refs';
 import { stateFilter } from './audits.service';
+import { basisInWords, formatResultValues, ruleLabel } from '../../shared/labels';
 import type { EventActor } from './record-events.service';
 
 const SORTABLE = ['number', 'dueDate', 'state', 'class', 'createdAt', 'title'] as const;
@@ -45,19 +46,15 @@ export const NEW_FINDING_FIELDS = {
   closedAt: null,
 } as const;
 
-function describeValues(values: RuleResult['values']): string {
-  return Object.entries(values)
-    .map(([key, value]) => `${key} = ${value === null ? '—' : String(value)}`)
-    .join('; ');
-}
+const describeValues = (values: RuleResult['values']): string => formatResultValues(values);
 
 /** What a failed checklist result says, as the finding's prefilled fields. */
 function prefillFromResult(result: RuleResult, techniqueCode: string, techniqueRevision: string) {
   const about = [result.flaw ? `flaw ${result.flaw}` : null, result.coil !== undefined ? `coil ${result.coil + 1}` : null].filter(Boolean).join(', ');
   return {
-    title: `${techniqueCode}: ${result.rule}${about ? ` (${about})` : ''}`,
+    title: `${techniqueCode}: ${ruleLabel(result.rule)}${about ? ` (${about})` : ''}`,
     rule: `checklist rule ${result.rule}`,
-    requirement: `The technique must pass the checklist rule "${result.rule}". Basis: ${result.basis}`,
+    requirement: `The technique must pass the checklist rule “${ruleLabel(result.rule)}”. Basis: ${basisInWords(result.basis)}`,
     objectiveEvidence: `Checklist run on ${techniqueCode} rev ${techniqueRevision}: ${result.message}${
       Object.keys(result.values).length ? ` Values: ${describeValues(result.values)}.` : ''
     }`,

@@ -26,6 +26,7 @@ import { CorrectiveAction, User } from '../models';
 import { verifyPassword } from '../auth/passwords';
 import { accountLockPolicy, registerFailure } from '../auth/sign-in.service';
 import { appendTrail, recordTrail } from './trail.service';
+import { snapshotIssuedFindings } from './audit-issue-snapshot';
 import { recordSignature } from './signatures.service';
 import { writeTrailAnchor } from './trail-anchors';
 import { runEffectsAfterCommit, runEffectsInTransaction, type EffectBatch } from './effects';
@@ -42,6 +43,7 @@ import {
 } from './workflow/record-kinds';
 import { assignFields, fieldsAfter } from './workflow/record-fields';
 import { refusalReason } from './workflow/refusal-reasons';
+import { stateLabel, trailEventLabel } from '../../shared/labels';
 import { retryOnDeadlock } from './workflow/retry';
 
 export interface EventActor {
@@ -128,6 +130,7 @@ async function persistTransition(
   model.set('machineVersion', recordMachines[kind].version);
   model.changed('snapshot' as keyof Model, true);
   await model.save({ transaction });
+  if (kind === 'audit' && event.type === 'ISSUE') await snapshotIssuedFindings(deps.sequelize, transaction, row.id, now);
   const changes = { ...fieldChanges, ...(args.extraTrail ?? {}) };
   await appendTrail(deps.sequelize, transaction, {
     userId: args.actorId,
@@ -177,7 +180,7 @@ async function sendServerEvent(
     extraTrail: { causedBy: `${causedBy.event} on ${TRAIL_TYPES[causedBy.kind]} ${causedBy.id}` },
   });
   if (!result) {
-    throw notAllowedNow(`The linked ${LABELS[kind]} cannot take ${event.type} while it is ${String(snapshot.value).replace(/_/g, ' ')}`);
+    throw notAllowedNow(`The linked ${LABELS[kind]} cannot take “${trailEventLabel(kind, event.type)}” while it is ${stateLabel(String(snapshot.value)).toLowerCase()}`);
   }
   return result.batch;
 }

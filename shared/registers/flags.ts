@@ -57,23 +57,16 @@ export function calibrationFlag(dueOn: string | Date | null, now: Date): Calibra
   return { status, daysLeft };
 }
 
-export const CERTIFICATE_STATUS_LABELS: Record<CertificateStatus, string> = {
-  expired: 'Expired',
-  'expires-30': 'Expires within 30 days',
-  'expires-60': 'Expires within 60 days',
-  valid: 'Valid',
-};
+/**
+ * What an item of equipment is on a day: the stored status, except that an item
+ * in service past its calibration due date is out of calibration, whatever was
+ * stored. The due date itself is still a day of valid calibration.
+ */
+export type EquipmentUseStatus = 'in_service' | 'out_of_calibration' | 'quarantined' | 'retired';
 
-export const VISION_STATUS_LABELS: Record<VisionStatus, string> = {
-  missing: 'No near-vision exam on record',
-  overdue: 'Near-vision exam overdue',
-  'due-soon': 'Near-vision exam due soon',
-  ok: 'Near-vision exam current',
-};
+export function equipmentUseStatus(storedStatus: string, calibrationDueOn: string | Date | null, now: Date): EquipmentUseStatus {
+  if (storedStatus === 'quarantined' || storedStatus === 'retired') return storedStatus;
+  return calibrationFlag(calibrationDueOn, now).status === 'overdue' ? 'out_of_calibration' : 'in_service';
+}
 
-export const CALIBRATION_STATUS_LABELS: Record<CalibrationStatus, string> = {
-  none: 'No calibration record',
-  overdue: 'Calibration overdue',
-  'due-soon': 'Calibration due soon',
-  ok: 'In calibration',
-};
+export { CALIBRATION_STATUS_LABELS, CERTIFICATE_STATUS_LABELS, EQUIPMENT_USE_STATUS_LABELS, VISION_STATUS_LABELS } from '../labels/registers';

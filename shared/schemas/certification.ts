@@ -4,11 +4,7 @@ import type { CertificateFlag, VisionFlag } from '../registers/flags';
 
 export const NDT_METHODS = ['ET', 'UT', 'PT', 'MT', 'RT', 'VT', 'LT', 'IRT'] as const;
 export const CERTIFICATION_SCHEMES = ['ISO 9712', 'EN 4179', 'written practice'] as const;
-export const CERTIFICATION_SCHEME_LABELS: Record<(typeof CERTIFICATION_SCHEMES)[number], string> = {
-  'ISO 9712': 'ISO 9712 (central certification)',
-  'EN 4179': 'EN 4179 (aerospace)',
-  'written practice': "Employer's written practice",
-};
+export { CERTIFICATION_SCHEME_LABELS } from '../labels/techniques';
 
 const sectorsSchema = z
   .array(z.string().trim().min(1, 'a sector must not be empty').max(40, 'a sector has at most 40 characters').regex(/^[^,]+$/, 'a sector must not contain a comma'))

@@ -1,21 +1,12 @@
 import { z } from 'zod';
 import { IsoDateSchema, ListQueryBaseSchema } from './common';
 import { FLAW_ORIENTATIONS } from './technique';
-import type { CalibrationFlag } from '../registers/flags';
+import type { CalibrationFlag, EquipmentUseStatus } from '../registers/flags';
 
 /** The same kinds the checklist engine's `equipment` rule knows. */
 export const EQUIPMENT_KIND_VALUES = ['instrument', 'probe', 'reference-standard'] as const;
-export const EQUIPMENT_KIND_LABELS: Record<(typeof EQUIPMENT_KIND_VALUES)[number], string> = {
-  instrument: 'Instrument',
-  probe: 'Probe',
-  'reference-standard': 'Reference standard',
-};
+export { EQUIPMENT_KIND_LABELS, EQUIPMENT_STATUS_LABELS } from '../labels/equipment';
 export const EQUIPMENT_STATUSES = ['in_service', 'quarantined', 'retired'] as const;
-export const EQUIPMENT_STATUS_LABELS: Record<(typeof EQUIPMENT_STATUSES)[number], string> = {
-  in_service: 'In service',
-  quarantined: 'Quarantined',
-  retired: 'Retired',
-};
 
 const positiveMm = (label: string) =>
   z.number({ error: `${label} must be a number in mm` }).positive(`${label} must be greater than 0 mm`).max(10_000, `${label} is at most 10 000 mm`);
@@ -112,6 +103,8 @@ export interface EquipmentView {
   notches: NotchView[];
   version: number;
   calibration: CalibrationFlag;
+  /** The stored status, or out of calibration when an item in service is past its due date. */
+  useStatus: EquipmentUseStatus;
 }
 
 export interface TechniqueLinksView {

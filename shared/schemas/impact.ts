@@ -7,12 +7,7 @@ import type { InspectionView } from './inspection';
 
 export const CONTAINMENT_DECISIONS = ['reinspect', 'recall_report', 'accept_justified', 'not_affected'] as const;
 export type ContainmentDecisionKind = (typeof CONTAINMENT_DECISIONS)[number];
-export const CONTAINMENT_DECISION_LABELS: Record<ContainmentDecisionKind, string> = {
-  reinspect: 'Re-inspect',
-  recall_report: 'Recall report',
-  accept_justified: 'Accept with justification',
-  not_affected: 'Not affected',
-};
+export { CONTAINMENT_DECISION_LABELS } from '../labels/inspections';
 
 export interface ContainmentDecisionView {
   decision: ContainmentDecisionKind;

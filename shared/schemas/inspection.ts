@@ -4,11 +4,7 @@ import { IsoDateSchema, ListQueryBaseSchema, isWellFormedText, ILL_FORMED_TEXT_M
 
 export const INSPECTION_RESULTS = ['accept', 'reject', 'indication_recorded'] as const;
 export type InspectionResult = (typeof INSPECTION_RESULTS)[number];
-export const INSPECTION_RESULT_LABELS: Record<InspectionResult, string> = {
-  accept: 'Accept',
-  reject: 'Reject',
-  indication_recorded: 'Indication recorded',
-};
+export { INSPECTION_RESULT_LABELS } from '../labels/inspections';
 
 const text = (label: string, max: number) =>
   z.string({ error: `${label} is required` }).trim().min(1, `enter the ${label}`).max(max, `${label} is at most ${max} characters`)

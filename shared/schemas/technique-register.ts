@@ -11,16 +11,8 @@ export const TECHNIQUE_REVISION_STATES = ['draft', 'approved', 'superseded'] as 
 export type TechniqueRevisionState = (typeof TECHNIQUE_REVISION_STATES)[number];
 export const VERDICTS = ['conforms', 'does-not-conform'] as const;
 
-export const TECHNIQUE_STATE_LABELS: Record<TechniqueRevisionState, string> = {
-  draft: 'Draft',
-  approved: 'Approved',
-  superseded: 'Superseded',
-};
-
-export const VERDICT_LABELS: Record<Verdict, string> = {
-  conforms: 'Conforms',
-  'does-not-conform': 'Does not conform',
-};
+export { TECHNIQUE_STATE_LABELS } from '../labels/techniques';
+export { VERDICT_LABELS } from '../labels/rules';
 
 const areaId = z.number({ error: 'areaId must be an area id or null' }).int().positive().nullable();
 const version = z.number({ error: 'version is required: the version you loaded' }).int().min(0);

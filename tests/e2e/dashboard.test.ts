@@ -59,7 +59,7 @@ describe('dashboard and registers in the browser', () => {
     await page.getByRole('link', { name: 'Equipment' }).click();
     await page.getByRole('table', { name: 'Equipment register' }).waitFor();
     await page.getByText('FM40-00731').waitFor();
-    expect(await page.getByRole('table', { name: 'Equipment register' }).textContent()).toMatch(/Overdue by 12 days/);
+    expect(await page.getByRole('table', { name: 'Equipment register' }).textContent()).toMatch(/Out of calibration: due date passed 12 days ago/);
     await page.screenshot({ path: screenshotPath('registers-equipment'), fullPage: true });
     // The bar-stock technique uses the portable instrument whose calibration lapsed.
     await page.getByRole('link', { name: 'Technique links' }).click();

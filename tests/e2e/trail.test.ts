@@ -22,7 +22,14 @@ describe('the trail page', () => {
     expect(await status.textContent()).toMatch(/All [\d,]+ entries verify/);
     await page.getByRole('textbox', { name: 'Record' }).fill('user:1');
     await page.getByRole('button', { name: 'Show entries' }).click();
-    await page.getByText('USER_CREATED').first().waitFor();
+    await page.getByText('Person added').first().waitFor();
+    expect(await page.getByText('USER_CREATED').count()).toBe(0);
+    // A record number finds its record, and the entries read in words with what changed.
+    await page.getByRole('textbox', { name: 'Record' }).fill('F-2026-0001');
+    await page.getByRole('button', { name: 'Show entries' }).click();
+    await page.getByRole('heading', { name: 'Finding F-2026-0001' }).waitFor();
+    await page.getByText('Finding raised').first().waitFor();
+    expect(await page.getByText(/areaId|FINDING_RAISED|\{"/).count()).toBe(0);
     await page.screenshot({ path: screenshotPath('trail-verified'), fullPage: true });
     await context.close();
   });

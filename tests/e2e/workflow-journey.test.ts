@@ -27,12 +27,12 @@ describe('the workflow journey in the browser', () => {
 
     // Run the checklist and raise a finding from the orientation failure in one step.
     await auditor.getByRole('button', { name: 'Run the checklist' }).click();
-    const failed = auditor.locator('li[data-status="fail"]', { hasText: 'orientation-coverage' });
+    const failed = auditor.locator('li[data-status="fail"]', { hasText: 'Orientation coverage' });
     await failed.waitFor();
     expect(await failed.textContent()).toContain('circ-crack');
     await auditor.screenshot({ path: screenshotPath('audit-checklist-run'), fullPage: true });
     await failed.getByRole('button', { name: 'Raise a finding' }).click();
-    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-023: orientation-coverage/ }).waitFor();
+    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-023: Orientation coverage/ }).waitFor();
     const findingUrl = auditor.url();
     await sendEvent(auditor, 'Submit');
     await auditor.getByText('In review', { exact: true }).first().waitFor();

@@ -40,11 +40,11 @@ describe('CSV export of the record lists', () => {
     expect(findings.status).toBe(200);
     const findingRows = rowsOf(findings.text);
     expect(findingRows).toHaveLength(1);
-    expect(findingRows[0]).toMatchObject({ Number: finding.number, Class: 'major', State: 'action_open', Technique: 'TAC-ET-023', Action: action.number });
+    expect(findingRows[0]).toMatchObject({ Number: finding.number, Class: 'Major', State: 'Action open', Technique: 'TAC-ET-023', Action: action.number });
     const actions = rowsOf((await cast.quality.agent.get('/api/actions.csv').query({ areaId: cast.areaId })).text);
-    expect(actions.map((row) => [row.Number, row.Finding, row.State])).toEqual([[action.number, finding.number, 'assigned']]);
+    expect(actions.map((row) => [row.Number, row.Finding, row.State])).toEqual([[action.number, finding.number, 'Assigned']]);
     const audits = rowsOf((await cast.technician.agent.get('/api/audits.csv').query({ areaId: cast.areaId })).text);
-    expect(audits.map((row) => [row.Audit, row.State, row.Techniques])).toEqual([[String(audit.id), 'fieldwork', 'TAC-ET-023 rev A']]);
+    expect(audits.map((row) => [row.Audit, row.State, row.Techniques])).toEqual([[String(audit.id), 'Fieldwork', 'TAC-ET-023 rev A']]);
     const techniques = await cast.technician.agent.get('/api/techniques.csv');
     expect(techniques.status).toBe(200);
     // Every field quoted (CSV injection guard), the header row too.

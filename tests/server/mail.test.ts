@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { formatDate } from '../../shared/format/dates';
 import { Area, CaughtMail, OutboxMessage, User } from '../../server/models';
 import { messageIdFor, createOutboxWorker } from '../../server/mail/outbox-worker';
 import { createMailTransport } from '../../server/mail/transport';
@@ -45,7 +46,7 @@ describe('e-mail through the outbox', () => {
     }, { what: 'the assignment message' });
     expect(caught).toHaveLength(1);
     expect(caught[0].envelopeTo).toEqual([cast.owner.user.email]);
-    expect(caught[0].subject).toBe(`Corrective action ${action.number} is assigned to you (due ${action.dueDate})`);
+    expect(caught[0].subject).toBe(`Corrective action ${action.number} is assigned to you (due ${formatDate(action.dueDate)})`);
     expect(caught[0].textBody).toContain(`${context.config.publicUrl}/actions/${action.id}`);
     expect(caught[0].htmlBody).toContain(`href="${context.config.publicUrl}/actions/${action.id}"`);
     expect((await caughtFor(cast.owner.user.email)).filter((message) => message.subject?.includes('is assigned to you'))).toHaveLength(1);

@@ -8,6 +8,9 @@ import { Signature } from '../../server/models';
 import { createTestContext, TEST_PASSWORD, type TestContext } from '../helpers/test-app';
 import { expectOk, findingAwaitingSignoff, makeCast, send } from '../helpers/workflow';
 import { binary, pdfPages } from '../helpers/pdf';
+import { formatUtcDateTime } from '../../shared/format/dates';
+import { RULE_IDS } from '../../shared/domain/checklist';
+import { AUDIT_STATES, CORRECTIVE_ACTION_STATES, FINDING_STATES, ROOT_CAUSE_METHODS } from '../../machines';
 
 let context: TestContext;
 beforeAll(() => {
@@ -19,7 +22,19 @@ afterAll(() => context.close());
 const OUTPUT_DIR = path.resolve(import.meta.dirname, '../output');
 mkdirSync(OUTPUT_DIR, { recursive: true });
 
-const utcMinute = (iso: string) => `${iso.slice(0, 16).replace('T', ' ')} UTC`;
+const utcMinute = (iso: string) => formatUtcDateTime(iso);
+
+// People read labels in a PDF, never codes: no rule id, basis tag, snake_case state, event code or JSON.
+const SNAKE_CASE_STATES = [...AUDIT_STATES, ...FINDING_STATES, ...CORRECTIVE_ACTION_STATES, ...ROOT_CAUSE_METHODS].filter((code) => code.includes('_'));
+function expectNoCodes(text: string) {
+  // Hyphenated ids are codes; "ferromagnetic", "personnel" and "equipment" are also plain words.
+  for (const rule of RULE_IDS.filter((id) => id.includes('-'))) expect(text, `rule id ${rule}`).not.toMatch(new RegExp(`(^|[^A-Za-z-])${rule}([^A-Za-z-]|$)`, 'm'));
+  expect(text).not.toMatch(/\[(pub|trade|mem)\]/i);
+  for (const state of SNAKE_CASE_STATES) expect(text, `code ${state}`).not.toContain(state);
+  expect(text).not.toMatch(/\b[A-Z]{3,}_[A-Z_]+\b/);
+  expect(text).not.toMatch(/[{[]\s*"\w+"\s*:/);
+  expect(text).not.toMatch(/\b[a-z]+[A-Z][A-Za-z]*(Mm|Hz|Id|Ids|Iacs)\b/);
+}
 
 describe('reports and exports', () => {
   it('when a finding is closed and its audit issued, then the PDFs carry the signatures, δ values, page numbers and the record hash on every page', async () => {
@@ -54,11 +69,17 @@ describe('reports and exports', () => {
     auditPages.forEach((page, index) => {
       expect(page).toContain(`Page ${index + 1} of ${auditPages.length}`);
       expect(page).toContain(`Record SHA-256 ${auditHash}`);
-      expect(page).toContain('certified ET Level 3');
+      // The organisation's name on every page (ORG_NAME's default in tests).
+      expect(page).toContain('Whorl');
     });
     const auditText = auditPages.join('\n');
     // The closing line: the trail's head when printed (a 64-hex hash, possibly wrapped by pdftotext's layout).
     expect(auditText).toMatch(/Trail head at print: sequence \d+, hash [0-9a-f]{16}/);
+    // The caution once per document, on the first page under the title.
+    expect(auditText.split('certified ET Level 3').length - 1).toBe(1);
+    expect(auditPages[0]).toContain('certified ET Level 3');
+    expectNoCodes(auditText);
+    expect(auditText).toMatch(/Basis: (Published|Common practice|Recalled|Organisation default)/);
     expect(auditText).toContain(`Signed by ${issue!.printedName}`);
     expect(auditText).toContain(`Meaning: ${issue!.meaning}`);
     expect(auditText).toContain(`Date and time: ${utcMinute(issue!.signedAt.toISOString())}`);
@@ -81,6 +102,8 @@ describe('reports and exports', () => {
       expect(page).toContain(`Record SHA-256 ${findingHash}`);
     });
     const findingText = findingPages.join('\n');
+    expectNoCodes(findingText);
+    expect(findingText.split('certified ET Level 3').length - 1).toBe(1);
     const closure = await Signature.findOne({ where: { recordType: 'finding', recordId: finding.id, event: 'CLOSE' } });
     const verify = await Signature.findOne({ where: { recordType: 'action', recordId: action.id, event: 'VERIFY' } });
     expect(findingText).toContain(`Signed by ${closure!.printedName}`);
@@ -89,7 +112,8 @@ describe('reports and exports', () => {
     expect(findingText).toContain(`Signed by ${verify!.printedName}`);
     expect(findingText).toContain('The technique was written for axial cracks only');
     expect(findingText).toContain('Tubes re-inspected with a rotating probe');
-    expect(findingText).toContain('CLOSE');
+    expect(findingText).toContain('Finding closed');
+    expect(findingText).toContain('Corrective action verified');
 
     // The JSON export carries the trail of the finding and its action, and the hash covers the content.
     const events = findingJson.body.content.trail.map((entry: { event: string }) => entry.event);
@@ -106,6 +130,56 @@ describe('reports and exports', () => {
     const actionJson = await cast.quality.agent.get(`/api/actions/${action.id}/export.json`);
     expect(actionJson.status).toBe(200);
     expect(actionJson.body.content.trail.map((entry: { event: string }) => entry.event)).toContain('VERIFY');
+  }, 90_000);
+});
+
+const HEADINGS = ['Scope and criteria', 'Checklist results', 'Findings', 'Signatures', 'Finding', 'Containment', 'Extent of condition', 'Impact on past inspections', 'Corrective action', 'Evidence', 'Verification', 'Closure', 'Trail'];
+
+/** The last line of text on a page, above the footer: never a heading. */
+function expectNoOrphanedHeadings(pages: string[]) {
+  pages.forEach((page, index) => {
+    const lines = page.split('\n').map((line) => line.trim()).filter((line) => line && !/Page \d+ of \d+|Record SHA-256/.test(line));
+    expect(HEADINGS, `page ${index + 1} ends with a heading`).not.toContain(lines[lines.length - 1]);
+  });
+}
+
+describe('audit report at issue', () => {
+  it('when a finding moves on after its audit is issued, then the report prints the state it had at issue; an audit issued before snapshots were kept says so', async () => {
+    const cast = await makeCast(context);
+    const { audit, finding } = await findingAwaitingSignoff(cast);
+    await expectOk(await send(cast.auditor, 'audits', audit.id, { type: 'FINISH_FIELDWORK' }));
+    await expectOk(await send(cast.quality, 'audits', audit.id, { type: 'ISSUE', password: TEST_PASSWORD }));
+    await expectOk(await send(cast.accountable, 'findings', finding.id, { type: 'CLOSE', password: TEST_PASSWORD }));
+
+    const pdf = await cast.quality.agent.get(`/api/audits/${audit.id}/report.pdf`).buffer(true).parse(binary);
+    expect(pdf.status).toBe(200);
+    const pages = pdfPages(pdf.body as Buffer);
+    const text = pages.join('\n');
+    expect(text).toContain('As they stood when the report was issued');
+    expect(text).toMatch(new RegExp(`${finding.number}[\\s\\S]*State: Awaiting signature`));
+    expect(text).not.toContain('State: Closed');
+    expectNoCodes(text);
+    expectNoOrphanedHeadings(pages);
+
+    await context.deps.sequelize.query('UPDATE audits SET issued_findings = NULL WHERE id = ?', { replacements: [audit.id] });
+    const older = pdfPages((await cast.quality.agent.get(`/api/audits/${audit.id}/report.pdf`).buffer(true).parse(binary)).body as Buffer).join('\n');
+    expect(older).toContain('issued before Whorl kept the findings as they stood at issue');
+    expect(older).toContain('State: Closed');
+  });
+
+  it('when the organisation has a name on record, then every report page carries it', async () => {
+    const { setOrganisationName } = await import('../../server/services/organisation.service');
+    await setOrganisationName(context.deps.sequelize, 'Harrowgate Test Works', new Date());
+    try {
+      const cast = await makeCast(context);
+      const { finding } = await findingAwaitingSignoff(cast);
+      const pages = pdfPages((await cast.quality.agent.get(`/api/findings/${finding.id}/record.pdf`).buffer(true).parse(binary)).body as Buffer);
+      for (const page of pages) expect(page).toContain('Harrowgate Test Works');
+      expectNoCodes(pages.join('\n'));
+      expectNoOrphanedHeadings(pages);
+    } finally {
+      await context.deps.sequelize.query('DELETE FROM organisation_profile');
+    }
   });
 });
 

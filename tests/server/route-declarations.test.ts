@@ -78,6 +78,14 @@ const EXPECTED_GUARDS: [string, string][] = [
   ['POST /evidence/:id/supersede', 'can supersede Evidence'],
   ['GET /mailbox', 'can read Mailbox'],
   ['GET /mailbox/:id', 'can read Mailbox'],
+  // Capability demonstrations: Level 3s record, analyse and accept; everyone reads.
+  ['GET /pod-demonstrations', 'can read Demonstration'],
+  ['GET /pod-demonstrations/:id', 'can read Demonstration'],
+  ['POST /pod-demonstrations', 'can create Demonstration'],
+  ['POST /pod-demonstrations/import/preview', 'can create Demonstration'],
+  ['PATCH /pod-demonstrations/:id', 'can update Demonstration'],
+  ['POST /pod-demonstrations/:id/analysis', 'can update Demonstration'],
+  ['POST /pod-demonstrations/:id/acceptance', 'can approve Demonstration'],
   // Everyone reads their own messages (the service narrows to the reader's unless they are an administrator).
   ['GET /notifications', 'can read Notification'],
   ['GET /notifications/:id', 'can read Notification'],

@@ -14,7 +14,7 @@ describe('materials library', () => {
       'brass-70-30': 28,
       'titanium-cp': 3.1,
       'stainless-304': 2.5,
-      'inconel-600': 1.7,
+      'alloy-600': 1.7,
       'titanium-6al-4v': 1.0,
       'carbon-steel': 10,
     };
@@ -28,5 +28,13 @@ describe('materials library', () => {
     }
     expect(MATERIALS.filter((material) => material.relativePermeability > 1).map((material) => material.id)).toEqual(['carbon-steel']);
     expect(MATERIALS.find((material) => material.id === 'titanium-6al-4v')?.source).toMatch(/^\[mem\]/);
+  });
+});
+
+describe('library names', () => {
+  // Trade names of nickel alloys are trademarks: the library uses the generic name and UNS number.
+  it('when the library is listed, then no name is a trademarked alloy name', () => {
+    for (const entry of MATERIALS) expect(entry.name).not.toMatch(/inconel|incoloy|hastelloy|monel|nimonic|waspaloy|haynes|udimet/i);
+    expect(MATERIALS.find((entry) => entry.id === 'alloy-600')?.name).toBe('Alloy 600 (UNS N06600)');
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { calibrationFlag, certificateFlag, visionFlag } from '../../shared/registers/flags';
+import { CALIBRATION_STATUS_LABELS, EQUIPMENT_USE_STATUS_LABELS, calibrationFlag, certificateFlag, equipmentUseStatus, visionFlag } from '../../shared/registers/flags';
 
 const at = (day: string) => new Date(`${day}T15:30:00Z`);
 
@@ -34,10 +34,32 @@ describe('register flags', () => {
     expect(visionFlag(null, at('2026-12-01'), 12)).toEqual({ status: 'missing', dueOn: null, daysLeft: null });
   });
 
-  it('when a calibration is due today, then it is still in calibration (due soon); the day after, overdue', () => {
+  it('when a calibration is due today, then its calibration is still current (due soon); the day after, overdue', () => {
     expect(calibrationFlag('2026-12-01', at('2026-12-01'))).toEqual({ status: 'due-soon', daysLeft: 0 });
     expect(calibrationFlag('2026-12-01', at('2026-12-02'))).toEqual({ status: 'overdue', daysLeft: -1 });
     expect(calibrationFlag('2027-01-01', at('2026-12-01'))).toEqual({ status: 'ok', daysLeft: 31 });
     expect(calibrationFlag(null, at('2026-12-01'))).toEqual({ status: 'none', daysLeft: null });
+  });
+});
+
+describe('equipment status on the day', () => {
+  // A calibration is valid through its due day (common practice, no single source); the day after, the item is out of calibration.
+  it.each([
+    ['in_service', '2026-12-01', '2026-11-30', 'in_service'],
+    ['in_service', '2026-12-01', '2026-12-01', 'in_service'],
+    ['in_service', '2026-12-01', '2026-12-02', 'out_of_calibration'],
+    ['in_service', '2026-11-20', '2026-12-02', 'out_of_calibration'],
+    ['in_service', null, '2026-12-02', 'in_service'],
+    ['quarantined', '2026-11-20', '2026-12-02', 'quarantined'],
+    ['retired', '2026-11-20', '2026-12-02', 'retired'],
+  ] as const)('when stored %s, due %s and today is %s, then it is %s', (stored, dueOn, today, expected) => {
+    expect(equipmentUseStatus(stored, dueOn, at(today))).toBe(expected);
+  });
+
+  it('when an item in service is 12 days past its due date, then it reads "Out of calibration", never "In service"; a current one reads "Calibration current"', () => {
+    const status = equipmentUseStatus('in_service', '2026-11-20', at('2026-12-02'));
+    expect(EQUIPMENT_USE_STATUS_LABELS[status]).toBe('Out of calibration');
+    expect(CALIBRATION_STATUS_LABELS[calibrationFlag('2026-11-20', at('2026-12-02')).status]).toBe('Out of calibration');
+    expect(CALIBRATION_STATUS_LABELS.ok).toBe('Calibration current');
   });
 });

@@ -9,10 +9,11 @@ import { seedRegisters } from './registers.seed';
 import { seedInspections } from './inspections.seed';
 import { seedWorkflows } from './workflows.seed';
 import { seedPodDemonstrations } from './pod.seed';
+import { seedOrganisation } from './organisation.seed';
 import type { SeedContext, SeedStep } from './seed-context';
 import type { AppConfig } from '../../config/env';
 
-export const seedSteps: SeedStep[] = [seedPeople, seedTechniques, seedRegisters, seedInspections, seedWorkflows, seedPodDemonstrations];
+export const seedSteps: SeedStep[] = [seedOrganisation, seedPeople, seedTechniques, seedRegisters, seedInspections, seedWorkflows, seedPodDemonstrations];
 
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
   initModels(sequelize);

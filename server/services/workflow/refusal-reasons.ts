@@ -1,9 +1,10 @@
 // Why an event is not allowed now, in words a user can act on (the 422 message).
 import { eventTypesFromState, type RecordKind } from '../../../machines';
 import type { AnyMachineSnapshot } from 'xstate';
+import { stateLabel } from '../../../shared/labels';
 import { LABELS } from './record-kinds';
 
-const STATE_WORDS = (state: string) => state.replace(/_/g, ' ');
+const STATE_WORDS = (state: string) => stateLabel(state).toLowerCase();
 
 export function refusalReason(
   kind: RecordKind,

@@ -61,7 +61,7 @@ export function DataTable<T>({
       <div className={`overflow-x-auto transition-opacity ${isRefreshing ? 'opacity-50' : ''}`}>
         <table className="w-full text-left text-sm">
           <caption className="sr-only">{caption}</caption>
-          <thead className="bg-lagoon-soft/60 text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="bg-lagoon-soft/60 text-xs tracking-wide text-ink-soft">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header) => {
@@ -72,7 +72,7 @@ export function DataTable<T>({
                       {sortable ? (
                         <button
                           type="button"
-                          className="inline-flex items-center gap-1 uppercase hover:text-ink"
+                          className="inline-flex items-center gap-1 hover:text-ink"
                           onClick={() => onSortChange(active && !descending ? `-${header.column.id}` : header.column.id)}
                         >
                           {flexRender(header.column.columnDef.header, header.getContext())}

@@ -4,6 +4,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { AGE_BANDS, type DashboardView } from '../../../../shared/schemas/dashboard';
 import { FINDING_STATES } from '../../../../machines';
+import { FINDING_CLASS_LABELS } from '../../../../shared/labels';
 import { ChartCard, NumberTable } from './chart-card';
 
 /** The list pages filter by a comma-separated state list: "open" is every state but closed and withdrawn. */
@@ -22,7 +23,7 @@ const COLOURS = {
 };
 const BAND_COLOURS = ['#9fc9cc', COLOURS.lagoon, COLOURS.copper, COLOURS.fail];
 
-const CLASS_LABELS: Record<string, string> = { major: 'Major', minor: 'Minor', observation: 'Observation', unclassified: 'Not yet classified' };
+const CLASS_LABELS: Record<string, string> = { ...FINDING_CLASS_LABELS, unclassified: 'Not yet classified' };
 const classLabel = (value: string) => CLASS_LABELS[value] ?? value;
 
 type Query = Record<string, string | number | undefined>;

@@ -1,6 +1,7 @@
 // The impact view from an item of equipment: an instrument, probe or reference
 // standard found out of calibration puts in doubt the inspections made with it
 // since its last good calibration (or since a date chosen).
+import { EQUIPMENT_USE_STATUS_LABELS, equipmentUseStatus } from '../../../../shared/registers/flags';
 import { useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
@@ -37,7 +38,7 @@ export function EquipmentImpactPage({ equipmentId }: { equipmentId: number }) {
       </PageHeader>
       <p className="text-sm">
         <Link className="text-lagoon underline" to="/registers/equipment">Equipment register</Link> · {view.equipment.description} · status{' '}
-        {view.equipment.status.replace(/_/g, ' ')} · calibrated {view.equipment.calibratedOn ?? '—'}, due {view.equipment.calibrationDueOn ?? '—'}
+        {EQUIPMENT_USE_STATUS_LABELS[equipmentUseStatus(view.equipment.status, view.equipment.calibrationDueOn, new Date())]} · calibrated {view.equipment.calibratedOn ?? '—'}, due {view.equipment.calibrationDueOn ?? '—'}
       </p>
       <Panel title="Inspections in doubt">
         <div className="flex flex-col gap-3 text-sm">

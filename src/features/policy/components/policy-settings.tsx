@@ -7,6 +7,7 @@ import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { ErrorNotice } from '../../../components/ui/states';
+import { basisInWords } from '../../../../shared/labels';
 import { useUpdatePolicy } from '../api/policy';
 
 type Drafts = Partial<Record<PolicyKey, string>>;
@@ -43,7 +44,7 @@ export function PolicySettings({ view, canEdit }: { view: PolicyView; canEdit: b
       <div className="overflow-x-auto rounded-lg border border-ink/10 bg-white">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Policy settings of the organisation</caption>
-          <thead className="bg-lagoon-soft/60 text-xs uppercase tracking-wide text-ink-soft">
+          <thead className="bg-lagoon-soft/60 text-xs tracking-wide text-ink-soft">
             <tr>
               <th scope="col" className="px-3 py-2">Setting</th>
               <th scope="col" className="px-3 py-2">Default</th>
@@ -66,7 +67,7 @@ export function PolicySettings({ view, canEdit }: { view: PolicyView; canEdit: b
                   <td className="px-3 py-2 whitespace-nowrap">
                     {setting.defaultValue} {setting.unit}
                   </td>
-                  <td className="px-3 py-2 text-xs text-ink-soft">{setting.basis}</td>
+                  <td className="px-3 py-2 text-xs text-ink-soft">{basisInWords(setting.basis)}</td>
                   <td className="px-3 py-2">
                     <div className="flex items-center gap-2">
                       <input

@@ -11,6 +11,7 @@ import { useAbility } from '../../../lib/ability';
 import { useCreateEquipment, useEquipment, useUpdateEquipment } from '../api/equipment';
 import { EquipmentForm, toEquipmentInput, type EquipmentFormValues } from './equipment-form';
 import { CalibrationBadge } from './flag-badge';
+import { EQUIPMENT_USE_STATUS_LABELS } from '../../../../shared/labels/registers';
 import { CsvExportLink, RecordExportLinks } from '../../../components/ui/export-links';
 import { FilterSearch, FilterSelect } from '../../../components/ui/list-filter';
 
@@ -73,7 +74,7 @@ export function EquipmentTable() {
           </div>
         ),
       }),
-      column.accessor('status', { header: 'Status', cell: (info) => EQUIPMENT_STATUS_LABELS[info.getValue()] }),
+      column.accessor('useStatus', { header: 'Status', cell: (info) => EQUIPMENT_USE_STATUS_LABELS[info.getValue()] }),
       column.display({
         id: 'actions',
         header: () => <span className="sr-only">Actions</span>,

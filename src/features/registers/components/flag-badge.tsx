@@ -1,5 +1,5 @@
 // Register flags in words and colour together (never colour alone).
-import type { CalibrationFlag, CertificateFlag, VisionFlag } from '../../../../shared/registers/flags';
+import { CALIBRATION_STATUS_LABELS, type CalibrationFlag, type CertificateFlag, type VisionFlag } from '../../../../shared/registers/flags';
 
 type Tone = 'fail' | 'warn' | 'pass' | 'muted';
 
@@ -49,10 +49,10 @@ export function CalibrationBadge({ flag, status }: { flag: CalibrationFlag; stat
     case 'none':
       return <Badge tone="fail">No calibration record</Badge>;
     case 'overdue':
-      return <Badge tone="fail">{`Overdue by ${days(-(flag.daysLeft ?? 0))}`}</Badge>;
+      return <Badge tone="fail">{`${CALIBRATION_STATUS_LABELS.overdue}: due date passed ${days(-(flag.daysLeft ?? 0))} ago`}</Badge>;
     case 'due-soon':
       return <Badge tone="warn">{`Due in ${days(flag.daysLeft ?? 0)}`}</Badge>;
     default:
-      return <Badge tone="pass">In calibration</Badge>;
+      return <Badge tone="pass">{CALIBRATION_STATUS_LABELS.ok}</Badge>;
   }
 }

@@ -1,17 +1,11 @@
 // The checklist's answer, rule by rule: status in words (never colour alone),
 // the message, the numbers behind it and the basis it rests on.
-import type { ChecklistOutput, ResultValue, RuleResult } from '../../../../shared/domain/checklist';
+import type { ChecklistOutput, RuleResult } from '../../../../shared/domain/checklist';
 import type { Technique } from '../../../../shared/schemas/technique';
 import { Caution } from '../../../components/ui/caution';
 import { StatusBadge, VerdictBadge } from './badges';
-import { RULE_LABELS, STATUS_TEXT, formatNumber } from './labels';
-
-function formatValue(value: ResultValue): string {
-  if (value === null) return '—';
-  if (typeof value === 'number') return formatNumber(value, 4);
-  if (typeof value === 'boolean') return value ? 'yes' : 'no';
-  return value;
-}
+import { RULE_LABELS, STATUS_TEXT } from './labels';
+import { basisInWords, resultValueItems } from '../../../../shared/labels';
 
 function subjectOf(result: RuleResult, technique: Technique | undefined): string | null {
   const parts: string[] = [];
@@ -25,7 +19,7 @@ function subjectOf(result: RuleResult, technique: Technique | undefined): string
 
 function ResultRow({ result, technique }: { result: RuleResult; technique?: Technique }) {
   const subject = subjectOf(result, technique);
-  const values = Object.entries(result.values);
+  const values = resultValueItems(result.values);
   return (
     <li className="border-t border-ink/10 py-3 first:border-t-0" data-rule={result.rule} data-status={result.status}>
       <div className="flex flex-wrap items-baseline gap-2">
@@ -38,16 +32,16 @@ function ResultRow({ result, technique }: { result: RuleResult; technique?: Tech
         <summary className="cursor-pointer select-none font-bold hover:text-ink">Values and basis</summary>
         {values.length > 0 && (
           <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
-            {values.map(([key, value]) => (
-              <div key={key} className="contents">
-                <dt className="font-mono">{key}</dt>
-                <dd>{formatValue(value)}</dd>
+            {values.map((item) => (
+              <div key={item.key} className="contents">
+                <dt>{item.label}</dt>
+                <dd>{item.text}</dd>
               </div>
             ))}
           </dl>
         )}
         <p className="mt-1">
-          <span className="font-bold">Basis:</span> {result.basis}
+          <span className="font-bold">Basis:</span> {basisInWords(result.basis)}
         </p>
       </details>
     </li>

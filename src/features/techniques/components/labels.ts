@@ -1,60 +1,14 @@
-import type { RuleId, RuleStatus } from '../../../../shared/domain/checklist';
-import type { CoilType, FlawLocation, FlawOrientation, PartForm } from '../../../../shared/schemas/technique';
-
-export const RULE_LABELS: Record<RuleId, string> = {
-  'orientation-coverage': 'Orientation coverage',
-  'center-effect': 'Center effect',
-  'scan-index': 'Scan index',
-  'penetration-depth': 'Penetration depth',
-  'edge-effect': 'Edge effect',
-  'fill-factor': 'Fill factor',
-  'limit-frequency': 'Limit frequency',
-  ferromagnetic: 'Ferromagnetic material',
-  'reference-standard': 'Reference standard',
-  'coil-size': 'Coil size against crack length',
-  personnel: 'People',
-  equipment: 'Equipment',
-  'demonstrated-capability': 'Demonstrated capability (POD)',
-};
+// The technique screens' words come from the shared labels, so screens, PDFs and e-mails say the same.
+export { RULE_LABELS, PART_FORM_LABELS, COIL_TYPE_LABELS, ORIENTATION_LABELS, LOCATION_LABELS } from '../../../../shared/labels';
+import type { RuleStatus } from '../../../../shared/domain/checklist';
+import { RULE_STATUS_LABELS } from '../../../../shared/labels';
 
 /** Status words and symbols: the colour is never the only signal. */
 export const STATUS_TEXT: Record<RuleStatus, { label: string; symbol: string; className: string }> = {
-  pass: { label: 'Pass', symbol: '✓', className: 'border-pass/40 bg-green-50 text-pass' },
-  fail: { label: 'Fail', symbol: '✗', className: 'border-fail/40 bg-red-50 text-fail' },
-  warn: { label: 'Warning', symbol: '!', className: 'border-warn/40 bg-amber-50 text-warn' },
-  not_applicable: { label: 'Not applicable', symbol: '–', className: 'border-ink/20 bg-white text-ink-soft' },
-};
-
-export const PART_FORM_LABELS: Record<PartForm, string> = {
-  plate: 'Plate or sheet (flat or gently curved surface)',
-  bar: 'Solid bar or rod',
-  tube: 'Tube',
-  bore: 'Bore or fastener hole',
-};
-
-export const COIL_TYPE_LABELS: Record<CoilType, string> = {
-  surface: 'Surface (flat) coil',
-  pencil: 'Pencil probe',
-  rotating: 'Rotating probe',
-  encircling: 'Encircling coil',
-  bobbin: 'Internal bobbin coil',
-  multidirectional: 'Multi-directional assembly',
-};
-
-export const ORIENTATION_LABELS: Record<FlawOrientation, string> = {
-  axial: 'Axial',
-  circumferential: 'Circumferential',
-  radial: 'Radial',
-  laminar: 'Laminar (parallel to the surface)',
-  longitudinal: 'Longitudinal',
-  transverse: 'Transverse',
-};
-
-export const LOCATION_LABELS: Record<FlawLocation, string> = {
-  surface: 'Open to the inspected surface',
-  subsurface: 'Below the surface',
-  'far-side': 'Far side (opposite wall)',
-  center: 'At the centre of a bar',
+  pass: { label: RULE_STATUS_LABELS.pass, symbol: '✓', className: 'border-pass/40 bg-green-50 text-pass' },
+  fail: { label: RULE_STATUS_LABELS.fail, symbol: '✗', className: 'border-fail/40 bg-red-50 text-fail' },
+  warn: { label: RULE_STATUS_LABELS.warn, symbol: '!', className: 'border-warn/40 bg-amber-50 text-warn' },
+  not_applicable: { label: RULE_STATUS_LABELS.not_applicable, symbol: '–', className: 'border-ink/20 bg-white text-ink-soft' },
 };
 
 export function formatHz(value: number): string {

@@ -7,6 +7,7 @@ import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { TextAreaField, TextField } from '../../../components/ui/field';
 import { EmptyState, ErrorNotice, Loading } from '../../../components/ui/states';
+import { basisInWords } from '../../../../shared/labels';
 import { useMaterials, useSaveMaterial } from '../api/techniques';
 
 function MaterialForm({ material, onDone }: { material?: MaterialView; onDone(): void }) {
@@ -75,7 +76,7 @@ export function MaterialsLibrary({ canEdit }: { canEdit: boolean }) {
         <div className="overflow-x-auto rounded-lg border border-ink/10 bg-white">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Materials with their nominal conductivity and permeability</caption>
-            <thead className="bg-lagoon-soft/60 text-xs uppercase tracking-wide text-ink-soft">
+            <thead className="bg-lagoon-soft/60 text-xs tracking-wide text-ink-soft">
               <tr>
                 <th scope="col" className="px-3 py-2">Material</th>
                 <th scope="col" className="px-3 py-2">Conductivity (%IACS)</th>
@@ -93,7 +94,7 @@ export function MaterialsLibrary({ canEdit }: { canEdit: boolean }) {
                   {/* 100 %IACS = 58.0 MS/m (ASTM E1004). */}
                   <td className="px-3 py-2">{+(material.conductivityIacs * 0.58).toPrecision(3)}</td>
                   <td className="px-3 py-2">{material.relativePermeability}</td>
-                  <td className="px-3 py-2 text-xs text-ink-soft">{material.source}</td>
+                  <td className="px-3 py-2 text-xs text-ink-soft">{basisInWords(material.source)}</td>
                   {canEdit && (
                     <td className="px-3 py-2 text-right">
                       <Button variant="ghost" onClick={() => setEditing(material)} aria-label={`Edit ${material.name}`}>

@@ -1,7 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import type { TrailEntryView, TrailVerificationView } from '../../../../shared/schemas/trail';
-import type { ListResponse } from '../../../../shared/schemas/common';
+import type { RecordTrailView, TrailVerificationView } from '../../../../shared/schemas/trail';
 
 export const getTrailVerificationQueryOptions = () =>
   queryOptions({
@@ -17,8 +16,9 @@ export const useTrailVerification = () => useQuery(getTrailVerificationQueryOpti
 export const getRecordTrailQueryOptions = (record: string) =>
   queryOptions({
     queryKey: ['trail', 'record', record],
-    queryFn: () => api.get<ListResponse<TrailEntryView>>('/trail', { record }),
-    enabled: /^[a-z_-]+:[A-Za-z0-9_-]+$/.test(record),
+    queryFn: () => api.get<RecordTrailView>('/trail', { record }),
+    // A record number (F-2026-0015), a technique code or type:id (finding:12).
+    enabled: record.trim().length > 0,
   });
 
 export const useRecordTrail = (record: string) => useQuery(getRecordTrailQueryOptions(record));

@@ -14,7 +14,7 @@ import type {
   FindingView,
   HomeView,
 } from '../../../../shared/schemas/workflow';
-import type { TrailEntryView } from '../../../../shared/schemas/trail';
+import type { RecordTrailView } from '../../../../shared/schemas/trail';
 import type { AreaView } from '../../../../shared/schemas/area';
 import type { UserView } from '../../../../shared/schemas/user';
 
@@ -52,7 +52,7 @@ export const useAction = (id: number) => useQuery(getActionQueryOptions(id));
 export const getRecordTrailQueryOptions = (type: 'audit' | 'finding' | 'action', id: number) =>
   queryOptions({
     queryKey: workflowKeys.trail(type, id),
-    queryFn: () => api.get<ListResponse<TrailEntryView>>('/trail', { record: `${type}:${id}` }),
+    queryFn: () => api.get<RecordTrailView>('/trail', { record: `${type}:${id}` }),
   });
 export const useRecordTrail = (type: 'audit' | 'finding' | 'action', id: number) => useQuery(getRecordTrailQueryOptions(type, id));
 

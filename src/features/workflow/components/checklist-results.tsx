@@ -8,6 +8,8 @@ import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/states';
 import { useRaiseFinding, useUpdateChecklistNotes } from '../api/workflow';
 import { RaiseErrorNotice } from './raise-error-notice';
+import { RULE_STATUS_LABELS, VERDICT_LABELS, basisInWords, resultValueItems, ruleLabel } from '../../../../shared/labels';
+import { useFormatDates } from '../../../lib/organisation';
 
 const STATUS_TONE: Record<string, string> = {
   pass: 'bg-pass/15 text-pass',
@@ -17,14 +19,14 @@ const STATUS_TONE: Record<string, string> = {
 };
 
 function Values({ values }: { values: RuleResult['values'] }) {
-  const entries = Object.entries(values);
-  if (!entries.length) return null;
+  const items = resultValueItems(values);
+  if (!items.length) return null;
   return (
-    <dl className="mt-1 flex flex-wrap gap-x-4 gap-y-0.5 font-mono text-xs text-ink-soft">
-      {entries.map(([key, value]) => (
-        <div key={key} className="flex gap-1">
-          <dt>{key}</dt>
-          <dd className="text-ink">{value === null ? '—' : typeof value === 'number' ? Number(value.toPrecision(4)) : String(value)}</dd>
+    <dl className="mt-1 flex flex-wrap gap-x-4 gap-y-0.5 text-xs text-ink-soft">
+      {items.map((item) => (
+        <div key={item.key} className="flex gap-1">
+          <dt>{item.label}:</dt>
+          <dd className="text-ink">{item.text}</dd>
         </div>
       ))}
     </dl>
@@ -38,24 +40,25 @@ export function ChecklistResults({ auditId, run, editable, canRaise }: { auditId
   const raise = useRaiseFinding(auditId);
   const navigate = useNavigate();
   const dirty = JSON.stringify(notes) !== JSON.stringify(run.notes);
+  const dates = useFormatDates();
 
   return (
     <article className="rounded-lg border border-ink/10 bg-white p-4" aria-label={`Checklist of ${run.techniqueCode}`}>
       <header className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
         <h3 className="font-bold">
           {run.techniqueCode} rev {run.techniqueRevision}:{' '}
-          <span className={output.verdict === 'conforms' ? 'text-pass' : 'text-fail'}>{output.verdict === 'conforms' ? 'conforms' : 'does not conform'}</span>
+          <span className={output.verdict === 'conforms' ? 'text-pass' : 'text-fail'}>{(VERDICT_LABELS[output.verdict as keyof typeof VERDICT_LABELS] ?? output.verdict).toLowerCase()}</span>
         </h3>
         <p className="text-xs text-ink-soft">
-          {output.summary.pass} pass · {output.summary.fail} fail · {output.summary.warn} warn · run by {run.runBy?.displayName} at {run.runAt.slice(0, 16).replace('T', ' ')} UTC
+          {output.summary.pass} pass · {output.summary.fail} fail · {output.summary.warn} warn · run by {run.runBy?.displayName} on {dates.dateTime(run.runAt)}
         </p>
       </header>
       <ol className="flex flex-col divide-y divide-ink/5">
         {output.results.map((result, index) => (
           <li key={index} className="py-2 text-sm" data-status={result.status}>
             <div className="flex flex-wrap items-start gap-2">
-              <span className={`rounded px-1.5 py-0.5 text-xs font-bold uppercase ${STATUS_TONE[result.status]}`}>{result.status.replace('_', ' ')}</span>
-              <span className="font-bold">{result.rule}</span>
+              <span className={`rounded px-1.5 py-0.5 text-xs font-bold ${STATUS_TONE[result.status]}`}>{RULE_STATUS_LABELS[result.status]}</span>
+              <span className="font-bold">{ruleLabel(result.rule)}</span>
               {result.flaw && <span className="text-ink-soft">flaw {result.flaw}</span>}
               {result.coil !== undefined && <span className="text-ink-soft">coil {result.coil + 1}</span>}
               {canRaise && (result.status === 'fail' || result.status === 'warn') && (
@@ -71,7 +74,7 @@ export function ChecklistResults({ auditId, run, editable, canRaise }: { auditId
             </div>
             <p className="mt-1">{result.message}</p>
             <Values values={result.values} />
-            <p className="mt-1 text-xs text-ink-soft">Basis: {result.basis}</p>
+            <p className="mt-1 text-xs text-ink-soft">Basis: {basisInWords(result.basis)}</p>
             {editable ? (
               <label className="mt-1 flex flex-col gap-1 text-xs font-bold text-ink-soft">
                 Auditor’s note

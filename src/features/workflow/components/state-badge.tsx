@@ -1,4 +1,5 @@
 import { stateLabel } from './labels';
+import { findingClassLabel } from '../../../../shared/labels';
 
 const TONES: Record<string, string> = {
   closed: 'bg-pass/15 text-pass',
@@ -20,7 +21,7 @@ export function StateBadge({ state }: { state: string }) {
 export function ClassBadge({ value }: { value: string | null }) {
   if (!value) return <span className="text-ink-soft">—</span>;
   const tone = value === 'major' ? 'bg-fail text-white' : value === 'minor' ? 'bg-warn/20 text-ink' : 'bg-ink/10 text-ink';
-  return <span className={`inline-block rounded px-1.5 py-0.5 text-xs font-bold uppercase ${tone}`}>{value}</span>;
+  return <span className={`inline-block rounded px-1.5 py-0.5 text-xs font-bold uppercase ${tone}`}>{findingClassLabel(value)}</span>;
 }
 
 export function DueDate({ date, overdue }: { date: string | null; overdue: boolean }) {
