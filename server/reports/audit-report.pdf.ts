@@ -18,6 +18,7 @@ const RULE_LABELS: Record<string, string> = {
   ferromagnetic: 'Ferromagnetic material',
   'reference-standard': 'Reference standard',
   'coil-size': 'Coil size',
+  'coil-mode': 'Coil mode',
   personnel: 'Personnel',
   equipment: 'Equipment',
 };

@@ -1,6 +1,7 @@
-// The organisation's policy: every threshold DOMAIN.md tags as common practice
-// ([trade]), recalled from memory ([mem]) or a product default is a setting with a
-// default here, editable by the organisation, never a constant buried in a rule.
+// The organisation's policy: every threshold docs/domain.md and docs/domain-rules.md
+// tag as common practice ([trade]), recalled from memory ([mem]) or a product default
+// is a setting with a default here, editable by the organisation, never a constant
+// buried in a rule.
 import { z } from 'zod';
 
 export interface PolicySetting {
@@ -35,6 +36,10 @@ export const POLICY_KEYS = [
   'referenceConductivityTolerancePercent',
   'notchOrientationToleranceDeg',
   'notchDepthRatioMax',
+  'ferromagneticPermeabilityMin',
+  'saturatedIncrementalPermeability',
+  'differentialSpacingDiameters',
+  'differentialLengthFailMultiple',
   'certificateValidityYears',
   'nearVisionExamMonths',
   'findingDueDaysMajor',
@@ -171,6 +176,44 @@ export const POLICY_SETTINGS: readonly PolicySetting[] = [
     basis: TRADE,
     min: 0.1,
     max: 10,
+  },
+  {
+    key: 'ferromagneticPermeabilityMin',
+    label: 'A material counts as ferromagnetic from this relative permeability μr',
+    defaultValue: 1.05,
+    unit: 'μr',
+    basis:
+      `${TRADE} (specifications for non-magnetic grades commonly set μr ≤ 1.05; titanium alloys ≈ 1.0001 and annealed austenitic stainless ≈ 1.003–1.02 stay below it, from memory)`,
+    min: 1.000001,
+    max: 100,
+  },
+  {
+    key: 'saturatedIncrementalPermeability',
+    label: 'Incremental μr of a magnetically saturated material, when the technique gives none',
+    defaultValue: 2,
+    unit: 'μr',
+    basis:
+      'from memory, not verified against the text: under the saturating field of tube and bar test equipment the incremental permeability falls to between 1 (full saturation) and a few; 2 errs toward a shallower depth of penetration',
+    min: 1,
+    max: 1000,
+  },
+  {
+    key: 'differentialSpacingDiameters',
+    label: 'Spacing of the two windings of a differential coil, when the technique gives none',
+    defaultValue: 0.5,
+    unit: '× coil diameter',
+    basis: `${PRODUCT} (two coils of half the probe diameter side by side, or two windings of an encircling coil about half a diameter apart)`,
+    min: 0.01,
+    max: 10,
+  },
+  {
+    key: 'differentialLengthFailMultiple',
+    label: 'A differential coil fails a flaw longer than this multiple of its winding spacing',
+    defaultValue: 5,
+    unit: '× spacing',
+    basis: `${PRODUCT} (a differential coil sees a long uniform flaw only at its ends; longer than the spacing warns, longer than this multiple fails unless an absolute coil covers it)`,
+    min: 1,
+    max: 1000,
   },
   {
     key: 'certificateValidityYears',

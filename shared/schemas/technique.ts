@@ -107,6 +107,13 @@ export const MaterialSchema = strictObject('material', {
     max: 1_000_000,
   }).default(1),
   saturated: booleanField('saturated', 'magnetic saturation used').default(false),
+  incrementalPermeability: numberField({
+    field: 'incrementalPermeability',
+    label: 'incremental relative permeability under magnetic saturation',
+    unit: '',
+    atLeast: 1,
+    max: 1_000_000,
+  }).optional(),
   ferromagneticJustification: z
     .string({ error: 'ferromagneticJustification must be text' })
     .trim()
@@ -163,6 +170,17 @@ export const CoilSchema = strictObject('coil', {
     1,
     16,
   ),
+  spacingMm: numberField({
+    field: 'spacingMm',
+    label: "distance between the two windings' centres of a differential coil",
+    unit: 'mm',
+    max: MAX_MM,
+  }).optional(),
+  pairAxisDeg: z
+    .number({ error: "pairAxisDeg (angle of a differential probe's coil pair to the part axis) must be a finite number of degrees" })
+    .min(-180, { error: "pairAxisDeg (angle of a differential probe's coil pair to the part axis) must be between -180 and 180°" })
+    .max(180, { error: "pairAxisDeg (angle of a differential probe's coil pair to the part axis) must be between -180 and 180°" })
+    .optional(),
 });
 
 export const ScanSchema = strictObject('scan', {
@@ -196,12 +214,26 @@ export const FlawSchema = strictObject('flaw', {
     atLeast: 0,
     max: MAX_MM,
   }).optional(),
+  throughWallMm: numberField({
+    field: 'throughWallMm',
+    label: "the flaw's own extent through the wall (default: depthMm for a surface flaw, the wall left below depthMm for a far-side flaw)",
+    unit: 'mm',
+    max: MAX_MM,
+  }).optional(),
 });
 
 export const NotchSchema = strictObject('notch', {
   orientation: enumField('orientation', FLAW_ORIENTATIONS),
   angleDeg: angleDeg.optional(),
-  depthMm: numberField({ field: 'depthMm', label: 'notch depth', unit: 'mm', max: MAX_MM }),
+  // Where the notch sits, as for a flaw; a notch written without it is on the inspected surface.
+  location: enumField('location', FLAW_LOCATIONS).default('surface'),
+  depthBelowSurfaceMm: numberField({
+    field: 'depthBelowSurfaceMm',
+    label: 'depth of a subsurface notch below the inspected surface of the standard',
+    unit: 'mm',
+    max: MAX_MM,
+  }).optional(),
+  depthMm: numberField({ field: 'depthMm', label: "notch depth (its own extent through the wall)", unit: 'mm', max: MAX_MM }),
   lengthMm: numberField({ field: 'lengthMm', label: 'notch length', unit: 'mm', max: MAX_MM }),
   edgeDistanceMm: numberField({
     field: 'edgeDistanceMm',
@@ -210,6 +242,13 @@ export const NotchSchema = strictObject('notch', {
     atLeast: 0,
     max: MAX_MM,
   }).optional(),
+}).superRefine((notch, ctx) => {
+  if (notch.location === 'subsurface' && notch.depthBelowSurfaceMm === undefined) {
+    ctx.addIssue({ code: 'custom', path: ['depthBelowSurfaceMm'], message: 'depthBelowSurfaceMm is required for a subsurface notch: how far below the inspected surface it sits' });
+  }
+  if (notch.location !== 'subsurface' && notch.depthBelowSurfaceMm !== undefined) {
+    ctx.addIssue({ code: 'custom', path: ['depthBelowSurfaceMm'], message: `depthBelowSurfaceMm applies to a subsurface notch; this notch's location is "${notch.location}"` });
+  }
 });
 
 export const ReferenceStandardSchema = strictObject('reference', {

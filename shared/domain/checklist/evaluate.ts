@@ -15,6 +15,7 @@ import { limitFrequency } from './rules/limit-frequency';
 import { ferromagnetic } from './rules/ferromagnetic';
 import { referenceStandard } from './rules/reference-standard';
 import { coilSize } from './rules/coil-size';
+import { coilMode } from './rules/coil-mode';
 import { personnel } from './rules/personnel';
 import { equipment } from './rules/equipment';
 
@@ -30,6 +31,7 @@ const RULES: readonly Rule[] = [
   ferromagnetic,
   referenceStandard,
   coilSize,
+  coilMode,
   personnel,
   equipment,
 ];

@@ -15,6 +15,7 @@ export const RULE_IDS = [
   'ferromagnetic',
   'reference-standard',
   'coil-size',
+  'coil-mode',
   'personnel',
   'equipment',
 ] as const;

@@ -11,7 +11,8 @@ function farSidePlate(frequencyHz: number, depthMm = 2): TechniqueInput {
     coils: [{ type: 'surface', diameterMm: 10, mode: 'absolute', frequenciesHz: [frequencyHz] }],
     scan: { indexMm: 4 },
     flaws: [{ id: 'far', orientation: 'transverse', location: 'far-side', depthMm, lengthMm: 10 }],
-    reference: { notches: [{ orientation: 'transverse', depthMm: 1, lengthMm: 10 }] },
+    // A far-side notch through the wall left below the flaw (3 − 2 = 1 mm).
+    reference: { notches: [{ orientation: 'transverse', location: 'far-side', depthMm: 1, lengthMm: 10 }] },
   });
 }
 

@@ -12,6 +12,7 @@ export const RULE_LABELS: Record<RuleId, string> = {
   ferromagnetic: 'Ferromagnetic material',
   'reference-standard': 'Reference standard',
   'coil-size': 'Coil size against crack length',
+  'coil-mode': 'Coil mode (absolute or differential)',
   personnel: 'People',
   equipment: 'Equipment',
 };
