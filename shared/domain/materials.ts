@@ -1,4 +1,4 @@
-// The materials library the server seeds: conductivity of common alloys (DOMAIN.md).
+// The materials library the server seeds: conductivity of common alloys (docs/domain-rules.md, "Materials library").
 // Values are nominal; a technique should use the conductivity measured on the part
 // or its reference standard where it matters.
 
@@ -23,7 +23,7 @@ export const MATERIALS: readonly MaterialEntry[] = Object.freeze([
   { id: 'brass-70-30', name: '70/30 brass', conductivityIacs: 28, relativePermeability: 1, source: PUBLISHED_TABLE },
   { id: 'titanium-cp', name: 'Titanium, commercially pure', conductivityIacs: 3.1, relativePermeability: 1, source: PUBLISHED_TABLE },
   { id: 'stainless-304', name: 'Stainless steel 304', conductivityIacs: 2.5, relativePermeability: 1, source: PUBLISHED_TABLE },
-  { id: 'inconel-600', name: 'Inconel 600', conductivityIacs: 1.7, relativePermeability: 1, source: PUBLISHED_TABLE },
+  { id: 'nickel-alloy-600', name: 'Alloy 600 (UNS N06600)', conductivityIacs: 1.7, relativePermeability: 1, source: PUBLISHED_TABLE },
   { id: 'titanium-6al-4v', name: 'Ti-6Al-4V', conductivityIacs: 1.0, relativePermeability: 1, source: '[mem] about 1.0 %IACS, recalled, not verified against a table' },
   {
     id: 'carbon-steel',

@@ -1,5 +1,5 @@
 // Eddy current physics used by the checklist engine and drawn by the UI.
-// Plain SI formulas (DOMAIN.md "Physics"); units are in every name. Pure math:
+// Plain SI formulas (docs/domain.md, "Physics"); units are in every name. Pure math:
 // out-of-range arguments give NaN or Infinity, never an exception.
 
 /** Magnetic constant μ0 = 4π×10⁻⁷ H/m (the classical definition the ET formula sheets use). */

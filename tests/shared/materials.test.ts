@@ -14,7 +14,7 @@ describe('materials library', () => {
       'brass-70-30': 28,
       'titanium-cp': 3.1,
       'stainless-304': 2.5,
-      'inconel-600': 1.7,
+      'nickel-alloy-600': 1.7,
       'titanium-6al-4v': 1.0,
       'carbon-steel': 10,
     };
