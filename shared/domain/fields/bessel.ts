@@ -46,57 +46,85 @@ interface JY {
   y1: Complex;
 }
 
-/** Ascending series for J0, J1, Y0, Y1 (z ≠ 0 for Y). */
+/** Ascending series for J0, J1, Y0, Y1 (z ≠ 0 for Y). Inner loop on plain numbers (speed). */
 function seriesJY(z: Complex): JY {
-  const q = z.mul(z).mul(-0.25); // −z²/4
-  let term0 = Complex.ONE; // (−z²/4)^k/(k!)²
-  let term1 = Complex.ONE; // (−z²/4)^k/(k!(k+1)!)
-  let j0 = Complex.ONE;
-  let s1 = Complex.ONE;
-  let y0sum = Complex.ZERO; // Σ_{k≥1} −H_k (−z²/4)^k/(k!)²
-  let y1sum = new Complex(2 * (-EULER_GAMMA) + 1, 0); // Σ_{k≥0} (ψ(k+1)+ψ(k+2)) (−z²/4)^k/(k!(k+1)!)
+  // q = −z²/4
+  const qRe = -(z.re * z.re - z.im * z.im) / 4;
+  const qIm = -(2 * z.re * z.im) / 4;
+  let t0Re = 1; // (−z²/4)^k/(k!)²
+  let t0Im = 0;
+  let t1Re = 1; // (−z²/4)^k/(k!(k+1)!)
+  let t1Im = 0;
+  let j0Re = 1;
+  let j0Im = 0;
+  let s1Re = 1;
+  let s1Im = 0;
+  let y0Re = 0; // Σ_{k≥1} −H_k (−z²/4)^k/(k!)²
+  let y0Im = 0;
+  let y1Re = 1 - 2 * EULER_GAMMA; // Σ_{k≥0} (ψ(k+1)+ψ(k+2)) (−z²/4)^k/(k!(k+1)!)
+  let y1Im = 0;
   let harmonic = 0;
-  for (let k = 1; k < 200; k++) {
-    term0 = term0.mul(q).div(k * k);
-    term1 = term1.mul(q).div(k * (k + 1));
+  for (let k = 1; k < 300; k++) {
+    let re = (t0Re * qRe - t0Im * qIm) / (k * k);
+    t0Im = (t0Re * qIm + t0Im * qRe) / (k * k);
+    t0Re = re;
+    re = (t1Re * qRe - t1Im * qIm) / (k * (k + 1));
+    t1Im = (t1Re * qIm + t1Im * qRe) / (k * (k + 1));
+    t1Re = re;
     harmonic += 1 / k;
-    j0 = j0.add(term0);
-    s1 = s1.add(term1);
-    y0sum = y0sum.sub(term0.mul(harmonic));
+    j0Re += t0Re;
+    j0Im += t0Im;
+    s1Re += t1Re;
+    s1Im += t1Im;
+    y0Re -= t0Re * harmonic;
+    y0Im -= t0Im * harmonic;
     // ψ(k+1) + ψ(k+2) = −2γ + H_k + H_{k+1}
-    y1sum = y1sum.add(term1.mul(-2 * EULER_GAMMA + harmonic + harmonic + 1 / (k + 1)));
-    if (term0.abs() < 1e-17 * j0.abs() && term1.abs() < 1e-17 * s1.abs() && k > 2) break;
+    const psi = -2 * EULER_GAMMA + 2 * harmonic + 1 / (k + 1);
+    y1Re += t1Re * psi;
+    y1Im += t1Im * psi;
+    const small = 1e-17;
+    if (k > 2 && Math.abs(t0Re) + Math.abs(t0Im) < small * (Math.abs(j0Re) + Math.abs(j0Im)) && Math.abs(t1Re) + Math.abs(t1Im) < small * (Math.abs(s1Re) + Math.abs(s1Im))) break;
   }
+  const j0 = new Complex(j0Re, j0Im);
   const half = z.mul(0.5);
-  const j1 = half.mul(s1);
+  const j1 = half.mul(new Complex(s1Re, s1Im));
   const logHalf = half.log();
-  const y0 = logHalf.add(EULER_GAMMA).mul(j0).add(y0sum).mul(TWO_OVER_PI);
+  const y0 = logHalf.add(EULER_GAMMA).mul(j0).add(new Complex(y0Re, y0Im)).mul(TWO_OVER_PI);
   const y1 = new Complex(-TWO_OVER_PI, 0)
     .div(z)
     .add(logHalf.mul(j1).mul(TWO_OVER_PI))
-    .sub(half.mul(y1sum).div(Math.PI));
+    .sub(half.mul(new Complex(y1Re, y1Im)).div(Math.PI));
   return { j0, j1, y0, y1 };
 }
 
 // ---------------------------------------------------------------- asymptotic
 
-/** Σ_k (±i)^k a_k(ν) z^(−k) of A&S 9.2.7/9.2.8, summed to its smallest term. */
+/** Σ_k (±i)^k a_k(ν) z^(−k) of A&S 9.2.7/9.2.8, summed to its smallest term (plain numbers: speed). */
 function hankelSeries(order: 0 | 1, z: Complex, sign: 1 | -1): Complex {
   const mu = 4 * order * order;
-  const step = sign === 1 ? I.div(z) : I.neg().div(z); // ±i/z
-  let term = Complex.ONE;
-  let sum = Complex.ONE;
+  // step = ±i/z = ±i·conj(z)/|z|²
+  const norm = z.re * z.re + z.im * z.im;
+  const stepRe = (sign * z.im) / norm;
+  const stepIm = (sign * z.re) / norm;
+  let termRe = 1;
+  let termIm = 0;
+  let sumRe = 1;
+  let sumIm = 0;
   let previous = Infinity;
   for (let k = 1; k < 100; k++) {
     const odd = 2 * k - 1;
-    term = term.mul(step).mul((mu - odd * odd) / (8 * k));
-    const size = term.abs();
+    const factor = (mu - odd * odd) / (8 * k);
+    const re = (termRe * stepRe - termIm * stepIm) * factor;
+    termIm = (termRe * stepIm + termIm * stepRe) * factor;
+    termRe = re;
+    const size = Math.abs(termRe) + Math.abs(termIm);
     if (size >= previous) break; // the series has begun to diverge
-    sum = sum.add(term);
-    if (size < 1e-17 * sum.abs()) break;
+    sumRe += termRe;
+    sumIm += termIm;
+    if (size < 1e-17 * (Math.abs(sumRe) + Math.abs(sumIm))) break;
     previous = size;
   }
-  return sum;
+  return new Complex(sumRe, sumIm);
 }
 
 function asymptoticScaled(z: Complex): ScaledHankel {

@@ -70,6 +70,8 @@ interface WallField {
   current(radiusMm: number): Complex;
   /** Flux through the circle of the outer radius a (encircling) or of the coil (internal), over μ0Kπ·(a² or c²). */
   fluxRatio: Complex;
+  /** Encircling: H_z at the bore (tube) or the axis (bar) over H_z at the outer surface. */
+  farField?: Complex;
 }
 
 // ---------------------------------------------------------------- solid bar
@@ -81,6 +83,8 @@ function solidBar(a: number, k: Complex, delta: number, mu: number): WallField {
   const muEff = atSurface.order1.mul(2).div(ka.mul(atSurface.order0));
   return {
     fluxRatio: muEff.mul(mu),
+    // 1/J0(ka), small-scaled: J0(ka) = J0s(ka)·e^{a/δ}.
+    farField: Complex.ONE.div(atSurface.order0).mul(Math.exp(-a / delta)),
     current(r) {
       if (r <= 0 || r > a) return Complex.ZERO;
       const inside = besselJScaled(k.mul(r));
@@ -109,6 +113,7 @@ function tubeWall(placement: LongCoilPlacement, a: number, b: number, c: number,
   let C: Complex;
   let D: Complex;
   let fluxRatio: Complex;
+  let farField: Complex | undefined;
   if (placement === 'encircling') {
     // C p0(a) + D q0(a) = 1;  C (p1 − βp0)(b) + D (q1 − βq0)(b) = 0.
     const det = atA.p0.mul(qB).sub(atA.q0.mul(pB));
@@ -119,6 +124,7 @@ function tubeWall(placement: LongCoilPlacement, a: number, b: number, c: number,
     const rim = (r: number, at: ReturnType<typeof basis>) => C.mul(at.p1).add(D.mul(at.q1)).mul(r);
     const wall = rim(a, atA).sub(rim(b, atB)).div(k).mul((2 * mu) / (a * a));
     fluxRatio = wall.add(hB.mul((b * b) / (a * a)));
+    farField = hB;
   } else {
     // C p0(a) + D q0(a) = 0;  C (p1 − βp0)(b) + D (q1 − βq0)(b) = β·c²/b²;  g = C p0(b) + D q0(b).
     const eta = (c * c) / (b * b);
@@ -130,12 +136,25 @@ function tubeWall(placement: LongCoilPlacement, a: number, b: number, c: number,
   }
   return {
     fluxRatio,
+    farField,
     current(r) {
       if (r < b || r > a) return Complex.ZERO;
       const at = basis(k, r, a, b);
       return k.mul(C.mul(at.p1).add(D.mul(at.q1)));
     },
   };
+}
+
+/**
+ * H at the bore of a tube (or the axis of a bar) over H at its outer surface, in an
+ * encircling coil: how much of the coil's field the wall lets through, and its lag.
+ */
+export function transmittedFieldRatio(outerRadiusMm: number, innerRadiusMm: number | undefined, conductivityMsPerM: number, relativePermeability: number, frequencyHz: number): Complex {
+  const delta = standardDepthFromSigmaMm(frequencyHz, conductivityMsPerM, relativePermeability);
+  const k = new Complex(1, -1).div(delta);
+  const b = innerRadiusMm ?? 0;
+  const field = b <= 0 ? solidBar(outerRadiusMm, k, delta, relativePermeability) : tubeWall('encircling', outerRadiusMm, b, outerRadiusMm, k, relativePermeability);
+  return field.farField as Complex;
 }
 
 // ---------------------------------------------------------------- solution
