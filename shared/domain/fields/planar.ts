@@ -29,8 +29,8 @@ import type { CoilGeometry, PlanarLayer } from './types';
 const MU0_H_PER_M = 4 * Math.PI * 1e-7;
 const POINTS_PER_PANEL = 10;
 const MAX_PANELS = 6000;
-/** Exponential decay e^(−30) ≈ 1e-13 ends an integral. */
-const DECAY_END = 30;
+/** Exponential decay e^(−22) ≈ 3e-10 ends an integral (the winding's spectrum decays algebraically on top). */
+const DECAY_END = 22;
 
 /** The coil's side of every integral: nodes, weights and source spectrum, fixed per coil. */
 interface CoilGrid {
