@@ -12,6 +12,8 @@ const RULE_LABELS: Record<string, string> = {
   'center-effect': 'Center effect',
   'scan-index': 'Scan index',
   'penetration-depth': 'Penetration depth',
+  'phase-separation': 'Flaw and lift-off signals apart',
+  'lift-off': 'Coating and lift-off',
   'edge-effect': 'Edge effect',
   'fill-factor': 'Fill factor',
   'limit-frequency': 'Limit frequency',

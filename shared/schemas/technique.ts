@@ -131,6 +131,13 @@ export const PartSchema = strictObject('part', {
     max: MAX_MM,
   }).optional(),
   wallMm: numberField({ field: 'wallMm', label: 'tube wall thickness', unit: 'mm', max: MAX_MM }).optional(),
+  coatingMm: numberField({
+    field: 'coatingMm',
+    label: 'non-conductive coating (paint, anodising, sealant) on the inspected surface',
+    unit: 'mm',
+    atLeast: 0,
+    max: 100,
+  }).optional(),
 }).superRefine((part, ctx) => {
   const need = (field: 'thicknessMm' | 'diameterMm' | 'wallMm', why: string) => {
     if (part[field] === undefined) ctx.addIssue({ code: 'custom', path: [field], message: `${field} is required for a ${part.form}: ${why}` });
@@ -170,9 +177,20 @@ export const CoilSchema = strictObject('coil', {
     1,
     16,
   ),
+  // Winding geometry for the coil field models; each is optional and defaults from diameterMm
+  // (shared/domain/fields/geometry.ts says how and why). diameterMm is the winding's outside diameter.
+  innerDiameterMm: numberField({ field: 'innerDiameterMm', label: 'winding inside diameter', unit: 'mm', atLeast: 0, max: MAX_MM }).optional(),
+  lengthMm: numberField({ field: 'lengthMm', label: 'winding length along the coil axis', unit: 'mm', max: MAX_MM }).optional(),
+  liftOffMm: numberField({
+    field: 'liftOffMm',
+    label: 'gap between the winding and the part with the probe on bare metal (wear face)',
+    unit: 'mm',
+    atLeast: 0,
+    max: 100,
+  }).optional(),
   spacingMm: numberField({
     field: 'spacingMm',
-    label: "distance between the two windings' centres of a differential coil",
+    label: 'centre-to-centre spacing of the two windings of a differential coil',
     unit: 'mm',
     max: MAX_MM,
   }).optional(),
@@ -259,6 +277,13 @@ export const ReferenceStandardSchema = strictObject('reference', {
     max: 120,
   }),
   notches: arrayOf('notches', NotchSchema, 0, 50),
+  shimMm: numberField({
+    field: 'shimMm',
+    label: 'non-conductive shim laid over the reference standard at calibration',
+    unit: 'mm',
+    atLeast: 0,
+    max: 100,
+  }).optional(),
 });
 
 const TechniqueObjectSchema = strictObject('technique', {
@@ -288,6 +313,20 @@ function checkCrossFields(technique: TechniqueShape, ctx: z.RefinementCtx) {
   const innerMm = insideDiameterMm(part);
 
   technique.coils.forEach((coil, index) => {
+    if (coil.innerDiameterMm !== undefined && coil.innerDiameterMm >= coil.diameterMm) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['coils', index, 'innerDiameterMm'],
+        message: `innerDiameterMm (winding inside diameter, ${coil.innerDiameterMm} mm) must be smaller than the coil diameter, diameterMm (${coil.diameterMm} mm)`,
+      });
+    }
+    if (coil.spacingMm !== undefined && coil.mode !== 'differential') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['coils', index, 'spacingMm'],
+        message: 'spacingMm (spacing of the two windings) applies to a differential coil; this coil is absolute',
+      });
+    }
     if (coil.type === 'encircling') {
       if (part.form !== 'bar' && part.form !== 'tube') {
         ctx.addIssue({

@@ -14,6 +14,7 @@ import type { Policy } from '../policy';
 import type { RegisterFacts } from './registers';
 import type { ChecklistValues, RuleContext } from './types';
 import { coilName } from './format';
+import { createCoilFields } from './coil-field';
 import { fieldRelativePermeability } from './permeability';
 
 /** Coils that go round the part or inside it: fill factor and limit frequency apply. */
@@ -54,8 +55,8 @@ export function coilFillFactor(coil: Coil, part: Part): number | null {
 export function buildContext(technique: Technique, policy: Policy, registers: RegisterFacts | undefined, now: Date): RuleContext {
   const { material, part, coils, flaws } = technique;
   // Saturated steel is seen through its incremental permeability, not its static μr.
-  const mu = fieldRelativePermeability(technique, policy);
-  const limit = partLimitFrequency(part, material.conductivityIacs, mu);
+  const fieldMu = fieldRelativePermeability(technique, policy);
+  const limit = partLimitFrequency(part, material.conductivityIacs, fieldMu);
 
   const standardDepth: number[][] = [];
   const effectiveDepth: number[][] = [];
@@ -67,7 +68,7 @@ export function buildContext(technique: Technique, policy: Policy, registers: Re
     const ratios: (number | null)[] = [];
     const ratioApplies = limit !== null && isEncirclingOrInternal(coil);
     for (const frequencyHz of coil.frequenciesHz) {
-      const delta = standardDepthMm(frequencyHz, material.conductivityIacs, mu);
+      const delta = standardDepthMm(frequencyHz, material.conductivityIacs, fieldMu);
       depths.push(delta);
       effective.push(policy.penetrationDepthFactor * delta);
       ratios.push(ratioApplies ? frequencyHz / limit.hz : null);
@@ -95,7 +96,8 @@ export function buildContext(technique: Technique, policy: Policy, registers: Re
     frequencyRatio,
     fillFactor,
     orientationSensitivity: sensitivity,
+    fieldRelativePermeability: fieldMu,
   };
   const coilNames = coils.map(coilName);
-  return { technique, policy, registers, now, values, flawNormals, coilNames };
+  return { technique, policy, registers, now, values, flawNormals, coilNames, fields: createCoilFields(technique, fieldMu) };
 }

@@ -9,6 +9,8 @@ import { orientationCoverage } from './rules/orientation-coverage';
 import { centerEffect } from './rules/center-effect';
 import { scanIndex } from './rules/scan-index';
 import { penetrationDepth } from './rules/penetration-depth';
+import { phaseSeparation } from './rules/phase-separation';
+import { liftOff } from './rules/lift-off';
 import { edgeEffect } from './rules/edge-effect';
 import { fillFactor } from './rules/fill-factor';
 import { limitFrequency } from './rules/limit-frequency';
@@ -25,6 +27,8 @@ const RULES: readonly Rule[] = [
   centerEffect,
   scanIndex,
   penetrationDepth,
+  phaseSeparation,
+  liftOff,
   edgeEffect,
   fillFactor,
   limitFrequency,
