@@ -20,7 +20,7 @@ afterAll(async () => {
 });
 
 /** An engine version other than the current one, standing for runs stored before the rules changed. */
-const OLDER_ENGINE = CHECKLIST_ENGINE_VERSION === '1.0' ? '0.9' : '1.0';
+const OLDER_ENGINE: string = (CHECKLIST_ENGINE_VERSION as string) === '1.0' ? '0.9' : '1.0';
 
 describe('engine version on stored runs', () => {
   it('when a checklist run is stored, then it keeps the engine version, says so in words, and a re-run lists the results that changed', async () => {
