@@ -137,6 +137,41 @@ export const DEMO_SISTER_TECHNIQUE: Technique = {
   },
 };
 
+/**
+ * A second-layer technique for the thick wing-skin lap joints, written from TAC-ET-031 with a small
+ * pencil probe to reach between the fastener heads. By the plane-wave figures it reaches the doubler
+ * (3δ = 11.4 mm at 1 kHz, 4 mm of metal above the crack), but the field of a 3 mm probe falls to about
+ * 2 % of its surface density 4 mm down: the coil is too small for the second layer, whatever the
+ * frequency. Approved long ago; the field-based penetration check finds it and the Structures Bay
+ * audit raises a finding from it. Kept out of DEMO_TECHNIQUES (the five of the first audits).
+ */
+export const DEMO_SECOND_LAYER_TECHNIQUE: Technique = {
+  code: 'TAC-ET-036',
+  title: 'Wing skin lap joint, second layer at the fastener row, pencil probe',
+  revision: 'A',
+  material: { name: '2024-T3 sheet', conductivityIacs: 30, relativePermeability: 1, saturated: false },
+  // 4 mm skin over a 4 mm doubler with 0.1 mm of sealant between.
+  part: { form: 'plate', thicknessMm: 8.1 },
+  coils: [{ type: 'pencil', diameterMm: 3, shielded: true, mode: 'absolute', frequenciesHz: [1_000] }],
+  scan: { indexMm: 1.5, edgeGuide: false },
+  flaws: [
+    {
+      id: 'doubler-crack',
+      orientation: 'transverse',
+      location: 'subsurface',
+      depthMm: 4.1,
+      lengthMm: 6,
+      metalAboveMm: 4.0,
+      throughWallMm: 1.5,
+    },
+  ],
+  reference: {
+    conductivityIacs: 30,
+    // A notch in the doubler of a reference lap joint of the same stack.
+    notches: [{ orientation: 'transverse', location: 'subsurface', depthBelowSurfaceMm: 4.1, depthMm: 1.5, lengthMm: 6 }],
+  },
+};
+
 export interface DemoTechniqueNote {
   /** The demo area the technique belongs to. */
   area: 'Wheel and Brake Shop' | 'Structures Bay' | 'Receiving Inspection';
@@ -152,5 +187,7 @@ export const DEMO_TECHNIQUE_NOTES: Readonly<Record<string, DemoTechniqueNote>> =
   'TAC-ET-017': { area: 'Receiving Inspection', expectedVerdict: 'does-not-conform', failingRules: ['center-effect', 'reference-standard'] },
   'TAC-ET-023': { area: 'Receiving Inspection', expectedVerdict: 'does-not-conform', failingRules: ['orientation-coverage'] },
   'TAC-ET-031': { area: 'Structures Bay', expectedVerdict: 'does-not-conform', failingRules: ['edge-effect'] },
+  // Conformed by the plane-wave figures; the field of its 3 mm probe does not reach the doubler.
+  'TAC-ET-036': { area: 'Structures Bay', expectedVerdict: 'does-not-conform', failingRules: ['penetration-depth'] },
   'TAC-ET-019': { area: 'Receiving Inspection', expectedVerdict: 'does-not-conform', failingRules: ['center-effect', 'reference-standard'] },
 };
