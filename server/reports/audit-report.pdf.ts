@@ -82,6 +82,8 @@ export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, g
       doc,
       `Run by ${run.runBy?.displayName ?? 'unknown'} at ${utc(run.runAt)} · ${output.summary.pass} pass, ${output.summary.fail} fail, ${output.summary.warn} warn, ${output.summary.not_applicable} not applicable`,
     );
+    small(doc, run.engineNote);
+    if (run.changes && run.changes.lines.length > 0) small(doc, `Changed since the previous run: ${run.changes.lines.join('; ')}.`);
     computedValues(doc, output, runTechniques[String(run.id)]);
     doc.moveDown(0.3);
     output.results.forEach((result, index) => {
