@@ -25,6 +25,7 @@ export const POLICY_KEYS = [
   'scanIndexFractionMax',
   'shortCrackFraction',
   'penetrationDepthFactor',
+  'fieldDensityRatioMin',
   'edgeZoneUnshieldedDiameters',
   'edgeZoneShieldedDiameters',
   'edgeNotchToleranceMm',
@@ -81,6 +82,15 @@ export const POLICY_SETTINGS: readonly PolicySetting[] = [
     basis: `${TRADE} (effective depth of penetration ≈ 3δ, where current density is 5 % of the surface value)`,
     min: 0.5,
     max: 5,
+  },
+  {
+    key: 'fieldDensityRatioMin',
+    label: "Lowest current density of the coil's field at a flaw, relative to the surface",
+    defaultValue: 0.05,
+    unit: '× surface density',
+    basis: `the density a plane wave has at the trade's 3δ effective depth, e^(−3) ≈ 5 %: ${TRADE}`,
+    min: 0.001,
+    max: 1,
   },
   {
     key: 'edgeZoneUnshieldedDiameters',
