@@ -226,3 +226,14 @@ describe('tube limit frequency from the tube model', () => {
     expect(nearlySolid / limitFrequencyHz(20, iacs)).toBeLessThan(3.5);
   });
 });
+
+describe('out-of-range input', () => {
+  it('gives NaN, never an exception (an internal coil without a bore, a wall as thick as the radius, no frequency)', () => {
+    const base: LongCoilInput = { placement: 'internal', outerRadiusMm: 10, coilRadiusMm: 4, conductivityMsPerM: 10, relativePermeability: 1, frequencyHz: 1000 };
+    for (const input of [base, { ...base, innerRadiusMm: 10 }, { ...base, innerRadiusMm: 5, frequencyHz: 0 }]) {
+      const solution = solveLongCoil(input);
+      expect(Number.isNaN(solution.impedanceNormalised.re)).toBe(true);
+      expect(Number.isNaN(solution.densityRatioAtDepth(1))).toBe(true);
+    }
+  });
+});
