@@ -104,7 +104,11 @@ function judgeFlaw(technique: Technique, policy: Policy, bar: BarField, encircli
     lowFrequencyDensityRatio: ceiling,
   };
   const others = technique.coils.flatMap((c, i) => (c.type === 'encircling' ? [] : [i]));
-  const figures = `the current density there is ${percent(best.ratio)} of the surface density at ${hz(best.frequencyHz)} (δ = ${mm(delta)}; a plane wave would give ${percent(planeWave)})`;
+  const shortfall = flawRadiusMm <= 0 ? '' : `, below the ${percent(minimum)} minimum`;
+  const figures =
+    flawRadiusMm <= 0
+      ? `no current flows there at any frequency (at ${hz(best.frequencyHz)}, δ = ${mm(delta)}, a plane wave would suggest ${percent(planeWave)} of the surface density)`
+      : `the current density there is ${percent(best.ratio)} of the surface density at ${hz(best.frequencyHz)} (δ = ${mm(delta)}; a plane wave would give ${percent(planeWave)})`;
 
   if (best.ratio >= minimum) {
     return {
@@ -120,8 +124,12 @@ function judgeFlaw(technique: Technique, policy: Policy, bar: BarField, encircli
 
   let remedy: string;
   if (ceiling < minimum) {
+    const why =
+      ceiling <= 0
+        ? 'the induced current is zero at the axis of a bar at every frequency'
+        : `the current in a bar falls towards the axis at every frequency, and even at the lowest frequencies it reaches only ${percent(ceiling)} of the surface density at this radius`;
     remedy =
-      `Lowering the frequency will not help: the current in a bar falls towards the axis at every frequency, and even at the lowest frequencies it reaches only ${percent(ceiling)} of the surface density at this radius. ` +
+      `Lowering the frequency will not help: ${why}. ` +
       'Use another method for the core, such as ultrasonic testing, or remove the flaw from the scope of this technique.';
   } else {
     const highest = highestFrequencyForRatio(bar, coil, depthMm, minimum, best.frequencyHz);
@@ -137,7 +145,7 @@ function judgeFlaw(technique: Technique, policy: Policy, bar: BarField, encircli
       flaw: flaw.id,
       coil: best.coil,
       message:
-        `Flaw "${flaw.id}" lies ${where}. In ${names} ${figures}, below the ${percent(minimum)} minimum; ` +
+        `Flaw "${flaw.id}" lies ${where}. In ${names} ${figures}${shortfall}; ` +
         `finding it rests on ${list(others.map((c) => coilNames[c]))} (see penetration-depth). ${remedy}`,
       values,
       basis: BASIS,
@@ -148,7 +156,7 @@ function judgeFlaw(technique: Technique, policy: Policy, bar: BarField, encircli
     status: 'fail',
     flaw: flaw.id,
     coil: best.coil,
-    message: `Flaw "${flaw.id}" lies ${where}. In ${names} ${figures}, below the ${percent(minimum)} minimum, so the technique cannot find it. ${remedy}`,
+    message: `Flaw "${flaw.id}" lies ${where}. In ${names} ${figures}${shortfall}, so the technique cannot find it. ${remedy}`,
     values,
     basis: BASIS,
   };
