@@ -14,7 +14,7 @@ import type { Policy } from '../../policy';
 import type { ResultValue, Rule, RuleResult } from '../types';
 
 const BASIS =
-  "[pub] long solid cylinder in an encircling coil: J(r)/J(a) = J1(kr)/J1(ka), k = (1−j)/δ (the solution behind Förster's effective permeability), zero at the axis at every frequency; minimum density at the flaw: policy fieldDensityRatioMin (default 5 %, the plane wave's density at 3δ)";
+  "[pub] long solid cylinder in an encircling coil: J(r)/J(a) = J1(kr)/J1(ka), k = (1−j)/δ (the solution behind Förster's effective permeability), zero at the axis at every frequency; minimum density at the flaw: the organisation's policy setting (default 5 %, the plane wave's density at 3δ)";
 
 /** True when the flaw sits at the axis of a solid bar (or as deep as its radius). */
 export function isAtBarCenter(flaw: Flaw, technique: Technique): boolean {
