@@ -146,7 +146,7 @@ function judgeFlaw(technique: Technique, policy: Policy, bar: BarField, encircli
       coil: best.coil,
       message:
         `Flaw "${flaw.id}" lies ${where}. In ${names} ${figures}${shortfall}; ` +
-        `finding it rests on ${list(others.map((c) => coilNames[c]))} (see penetration-depth). ${remedy}`,
+        `finding it rests on ${list(others.map((c) => coilNames[c]))} (see the penetration depth check). ${remedy}`,
       values,
       basis: BASIS,
     };
