@@ -161,7 +161,7 @@ export function highestReachingFrequencyHz(
   if (ratioAt(highHz) >= densityRatioMin) return highHz;
   let lo = Math.log(lowHz);
   let hi = Math.log(highHz);
-  for (let i = 0; i < 11; i++) {
+  for (let i = 0; i < 9; i++) {
     const mid = 0.5 * (lo + hi);
     if (ratioAt(Math.exp(mid)) >= densityRatioMin) lo = mid;
     else hi = mid;
@@ -203,7 +203,7 @@ export function bestPhaseSeparation(
     return { frequencyHz, phaseSeparationDeg: coilFieldAtDepth(setting, coil, frequencyHz, depthMm, { flaw }).phaseSeparationDeg };
   }
   const angleAt = (f: number) => coilFieldAtDepth(setting, coil, f, depthMm, { flaw }).phaseSeparationDeg;
-  const sweep = logSpace(lowHz, highHz, 9);
+  const sweep = logSpace(lowHz, highHz, 7);
   let best = 0;
   const angles = sweep.map(angleAt);
   for (let i = 1; i < angles.length; i++) if (angles[i] > angles[best]) best = i;
@@ -214,7 +214,7 @@ export function bestPhaseSeparation(
   let d = a + golden * (b - a);
   let fc = angleAt(Math.exp(c));
   let fd = angleAt(Math.exp(d));
-  for (let i = 0; i < 6; i++) {
+  for (let i = 0; i < 4; i++) {
     if (fc >= fd) {
       b = d;
       d = c;

@@ -16,7 +16,7 @@
 // decaying exponentials are ever formed).
 //
 // Numerics: the α-integrals run on a composite Gauss–Legendre grid fixed per coil (panels
-// doubling from α ≈ 0 up to π/r_max, then panels of width π/r_max, 10 points each, up to
+// doubling from α ≈ 0 up to π/r_max, then panels of width π/r_max, 8 points each, up to
 // where e^(−α·lift-off) and the coil's own spectrum have died away); the coil's factors are
 // computed once per coil, the layers' response once per (coil, layers, frequency). The
 // tests compare the grid against adaptive Gauss–Kronrod and against closed forms: relative
@@ -27,7 +27,7 @@ import { gaussLegendreRule } from './quadrature';
 import type { CoilGeometry, PlanarLayer } from './types';
 
 const MU0_H_PER_M = 4 * Math.PI * 1e-7;
-const POINTS_PER_PANEL = 10;
+const POINTS_PER_PANEL = 8;
 const MAX_PANELS = 6000;
 /** Exponential decay e^(−22) ≈ 3e-10 ends an integral (the winding's spectrum decays algebraically on top). */
 const DECAY_END = 22;
@@ -83,9 +83,9 @@ function buildGrid(geometry: CoilGeometry, radialReachMm: number): CoilGrid {
   const panelWidth = Math.PI / rMax;
   // Where the integrands have died away: e^(−α z1) for the fields and impedance, the
   // algebraic decay of the winding's spectrum for the air inductance.
-  let alphaEnd = z1 > 0 ? Math.min(DECAY_END / z1, 3000 / r2) : 3000 / r2;
+  let alphaEnd = z1 > 0 ? Math.min(DECAY_END / z1, 1000 / r2) : 1000 / r2;
   const thinnest = Math.min(width, length);
-  if (thinnest > 0) alphaEnd = Math.max(alphaEnd, 400 / thinnest);
+  if (thinnest > 0) alphaEnd = Math.max(alphaEnd, 200 / thinnest);
   const breaks: number[] = [0];
   for (let b = panelWidth / 65536; b < panelWidth; b *= 2) breaks.push(b);
   const uniform = Math.min(MAX_PANELS, Math.ceil(alphaEnd / panelWidth));
