@@ -13,6 +13,8 @@ export class ChecklistRun extends Model<InferAttributes<ChecklistRun>, InferCrea
   declare technique: Technique;
   declare output: ChecklistOutput;
   declare verdict: string;
+  /** CHECKLIST_ENGINE_VERSION when the run was made. */
+  declare engineVersion: string;
   /** Keyed by the result's index in output.results. */
   declare notes: Record<string, string>;
   declare runById: number;
@@ -35,6 +37,7 @@ export function initChecklistRun(sequelize: Sequelize) {
       technique: { type: DataTypes.JSON, allowNull: false },
       output: { type: DataTypes.JSON, allowNull: false },
       verdict: { type: DataTypes.STRING(32), allowNull: false },
+      engineVersion: { type: DataTypes.STRING(20), allowNull: false },
       notes: { type: DataTypes.JSON, allowNull: false },
       runById: { type: DataTypes.INTEGER, allowNull: false },
       runAt: { type: DataTypes.DATE(3), allowNull: false },

@@ -1,4 +1,5 @@
 import type { Audit, ChecklistRun, Finding, Signature } from '../models';
+import { describeRunChanges, engineVersionNote, type RunOutcome } from '../../shared/domain/checklist/run-history';
 import type { AuditDetailView, AuditView, ChecklistRunView, FindingSummaryView } from '../../shared/schemas/workflow';
 import { presentSignature } from '../services/signatures.service';
 import { iso, personRef } from './workflow-refs';
@@ -26,7 +27,10 @@ export function presentAudit(audit: Audit, extra: { allowedEvents: string[]; ope
   };
 }
 
-export function presentChecklistRun(run: ChecklistRun): ChecklistRunView {
+type StoredOutput = { verdict: string; results: RunOutcome['results'] };
+
+/** The run, with what changed since `previous` (the run of the same technique before it in the same audit). */
+export function presentChecklistRun(run: ChecklistRun, previous?: ChecklistRun | null): ChecklistRunView {
   return {
     id: run.id,
     auditId: run.auditId,
@@ -39,7 +43,24 @@ export function presentChecklistRun(run: ChecklistRun): ChecklistRunView {
     runBy: personRef(run.runBy),
     runAt: run.runAt.toISOString(),
     version: run.version,
+    engineVersion: run.engineVersion,
+    engineNote: engineVersionNote(run.engineVersion, run.runAt),
+    changes: previous
+      ? {
+          previousRunId: previous.id,
+          previousRunAt: previous.runAt.toISOString(),
+          previousEngineVersion: previous.engineVersion,
+          lines: describeRunChanges(previous.output as StoredOutput, run.output as StoredOutput),
+        }
+      : null,
   };
+}
+
+/** Runs newest first, each with the next older run of the same technique code as its previous one. */
+export function presentChecklistRuns(runsNewestFirst: ChecklistRun[]): ChecklistRunView[] {
+  return runsNewestFirst.map((run, index) =>
+    presentChecklistRun(run, runsNewestFirst.slice(index + 1).find((older) => older.techniqueCode === run.techniqueCode) ?? null),
+  );
 }
 
 export function presentFindingSummary(finding: Finding): FindingSummaryView {
@@ -67,7 +88,7 @@ export function presentAuditDetail(
 ): AuditDetailView {
   return {
     ...presentAudit(audit, extra),
-    checklistRuns: extra.runs.map(presentChecklistRun),
+    checklistRuns: presentChecklistRuns(extra.runs),
     findings: extra.findings.map(presentFindingSummary),
     signatures: extra.signatures.map(presentSignature),
     canRunChecklist: extra.canRunChecklist,

@@ -75,6 +75,8 @@ export async function renderAuditReport(exported: ExportEnvelope<AuditExport>, g
       doc,
       `Run by ${run.runBy?.displayName ?? 'unknown'} on ${at(doc, run.runAt)} · ${output.summary.pass} pass, ${output.summary.fail} fail, ${output.summary.warn} warning(s), ${output.summary.not_applicable} not applicable`,
     );
+    small(doc, run.engineNote);
+    if (run.changes && run.changes.lines.length > 0) small(doc, `Changed since the previous run: ${run.changes.lines.join('; ')}.`);
     computedValues(doc, output, runTechniques[String(run.id)]);
     doc.moveDown(0.3);
     output.results.forEach((result, index) => {

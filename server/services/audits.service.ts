@@ -16,7 +16,7 @@ import type {
   ChecklistRunCreateSchema,
   ChecklistRunView,
 } from '../../shared/schemas/workflow';
-import { evaluateParsedTechnique, parseTechnique, type ChecklistOutput } from '../../shared/domain/checklist';
+import { CHECKLIST_ENGINE_VERSION, evaluateParsedTechnique, parseTechnique, type ChecklistOutput } from '../../shared/domain/checklist';
 import { techniqueChecklist } from './technique-checklist.service';
 import { QueryTypes } from 'sequelize';
 import { appendTrail } from './trail.service';
@@ -127,6 +127,19 @@ function maySendChecklist(ability: AppAbility, audit: Audit) {
   return ability.can('create', subject('ChecklistRun', { leadAuditorId: audit.leadAuditorId, state: 'fieldwork', areaId: audit.areaId }));
 }
 
+/** The run of the same technique just before this one in the same audit, to show what changed. */
+async function previousRunOf(run: ChecklistRun): Promise<ChecklistRun | null> {
+  return ChecklistRun.findOne({
+    where: { auditId: run.auditId, techniqueCode: run.techniqueCode, [Op.or]: [{ runAt: { [Op.lt]: run.runAt } }, { runAt: run.runAt, id: { [Op.lt]: run.id } }] },
+    order: [['runAt', 'DESC'], ['id', 'DESC']],
+  });
+}
+
+async function presentStoredRun(runId: number): Promise<ChecklistRunView> {
+  const run = await ChecklistRun.findByPk(runId, { include: [{ model: User, as: 'runBy', attributes: ['id', 'displayName'] }] });
+  return presentChecklistRun(run!, await previousRunOf(run!));
+}
+
 export async function getAudit(actor: EventActor, ability: AppAbility, id: number): Promise<AuditDetailView> {
   const audit = await Audit.findByPk(id, { include: auditIncludes });
   if (!audit) throw notFound('Audit');
@@ -196,6 +209,7 @@ export async function runChecklist(
         technique: definition,
         output,
         verdict: output.verdict,
+        engineVersion: CHECKLIST_ENGINE_VERSION,
         notes,
         runById: actor.id,
         runAt: now,
@@ -207,13 +221,12 @@ export async function runChecklist(
       recordType: 'audit',
       recordId: auditId,
       event: 'CHECKLIST_RUN',
-      changes: { checklistRunId: run.id, technique: `${definition.code} rev ${definition.revision}`, verdict: output.verdict, summary: output.summary },
+      changes: { checklistRunId: run.id, technique: `${definition.code} rev ${definition.revision}`, verdict: output.verdict, summary: output.summary, engineVersion: CHECKLIST_ENGINE_VERSION },
       at: now,
     });
     return run.id;
   });
-  const run = await ChecklistRun.findByPk(runId, { include: [{ model: User, as: 'runBy', attributes: ['id', 'displayName'] }] });
-  return presentChecklistRun(run!);
+  return presentStoredRun(runId);
 }
 
 export async function updateChecklistNotes(
@@ -256,6 +269,5 @@ export async function updateChecklistNotes(
       at: deps.clock.now(),
     });
   });
-  const run = await ChecklistRun.findByPk(runId, { include: [{ model: User, as: 'runBy', attributes: ['id', 'displayName'] }] });
-  return presentChecklistRun(run!);
+  return presentStoredRun(runId);
 }

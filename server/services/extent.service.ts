@@ -4,10 +4,11 @@
 // Each run is kept (who, when, engine and policy version, the whole list) and
 // written to the trail, so the decision can be shown to an assessor later.
 // Linked findings are raised from a run in extent-findings.service.ts.
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { AppDeps } from '../app-deps';
 import type { AppAbility } from '../../shared/abilities';
 import { CHECKLIST_ENGINE_VERSION } from '../../shared/domain/checklist';
+import { describeExtentChanges, engineVersionNote } from '../../shared/domain/checklist/run-history';
 import type { ExtentRunView, ExtentTechnique, FindingFamilyView } from '../../shared/schemas/extent';
 import { ExtentRun, Finding, PolicyHead, Technique, TechniqueRevision, User } from '../models';
 import { notAllowedNow, notFound } from '../lib/app-error';
@@ -52,6 +53,12 @@ async function evaluateApprovedRevisions(deps: AppDeps, finding: Finding, rule: 
 
 async function presentRun(run: ExtentRun, transaction?: Transaction): Promise<ExtentRunView> {
   const runBy = run.runBy ?? (await User.findByPk(run.runById, { attributes: ['id', 'displayName'], transaction }));
+  const previous = await ExtentRun.findOne({
+    where: { findingId: run.findingId, id: { [Op.lt]: run.id } },
+    order: [['id', 'DESC']],
+    attributes: ['id', 'runAt', 'engineVersion', 'techniques'],
+    transaction,
+  });
   const linked = await Finding.findAll({
     where: { extentOfId: run.findingId },
     attributes: ['id', 'number', 'state', 'techniqueId'],
@@ -65,11 +72,20 @@ async function presentRun(run: ExtentRun, transaction?: Transaction): Promise<Ex
     flawOrientation: run.flawOrientation,
     coilType: run.coilType,
     engineVersion: run.engineVersion,
+    engineNote: engineVersionNote(run.engineVersion, run.runAt),
     policyVersion: run.policyVersion,
     runAt: run.runAt.toISOString(),
     runBy: { id: run.runById, name: runBy?.displayName ?? '' },
     evaluatedCount: run.techniques.length,
     failing: run.techniques.filter((technique) => technique.failures.length > 0),
+    changes: previous
+      ? {
+          previousRunId: previous.id,
+          previousRunAt: previous.runAt.toISOString(),
+          previousEngineVersion: previous.engineVersion,
+          lines: describeExtentChanges(run.rule, previous.techniques, run.techniques),
+        }
+      : null,
     linked: linked
       .filter((finding) => finding.techniqueId !== null)
       .map((finding) => ({ techniqueId: finding.techniqueId!, findingId: finding.id, number: finding.number, state: finding.state })),

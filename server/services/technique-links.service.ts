@@ -1,5 +1,5 @@
 // Which equipment and which people a technique uses, and the register facts the
-// checklist's `personnel` and `equipment` rules are judged on (DOMAIN.md rule 8).
+// checklist's `personnel` and `equipment` rules are judged on (docs/domain-rules.md, "People and equipment").
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { AppDeps } from '../app-deps';
 import { Certification, Equipment, ReferenceNotch, TechniqueEquipment, TechniquePerformer, User } from '../models';

@@ -1,4 +1,4 @@
-// The materials library the server seeds: conductivity of common alloys (DOMAIN.md).
+// The materials library the server seeds: conductivity of common alloys (docs/domain-rules.md, "Materials library").
 // Values are nominal; a technique should use the conductivity measured on the part
 // or its reference standard where it matters.
 

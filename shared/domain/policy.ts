@@ -1,6 +1,7 @@
-// The organisation's policy: every threshold DOMAIN.md tags as common practice
-// ([trade]), recalled from memory ([mem]) or a product default is a setting with a
-// default here, editable by the organisation, never a constant buried in a rule.
+// The organisation's policy: every threshold docs/domain.md and docs/domain-rules.md
+// tag as common practice ([trade]), recalled from memory ([mem]) or a product default
+// is a setting with a default here, editable by the organisation, never a constant
+// buried in a rule.
 import { z } from 'zod';
 
 export interface PolicySetting {
@@ -25,6 +26,11 @@ export const POLICY_KEYS = [
   'scanIndexFractionMax',
   'shortCrackFraction',
   'penetrationDepthFactor',
+  'densityRatioMin',
+  'phaseSeparationMinDeg',
+  'shimTolerancePercent',
+  'liftOffSensitivityLossMaxPercent',
+  'fieldDensityRatioMin',
   'edgeZoneUnshieldedDiameters',
   'edgeZoneShieldedDiameters',
   'edgeNotchToleranceMm',
@@ -35,6 +41,10 @@ export const POLICY_KEYS = [
   'referenceConductivityTolerancePercent',
   'notchOrientationToleranceDeg',
   'notchDepthRatioMax',
+  'ferromagneticPermeabilityMin',
+  'saturatedIncrementalPermeability',
+  'differentialSpacingDiameters',
+  'differentialLengthFailMultiple',
   'certificateValidityYears',
   'nearVisionExamMonths',
   'demonstrationRequired',
@@ -84,6 +94,51 @@ export const POLICY_SETTINGS: readonly PolicySetting[] = [
     basis: `${TRADE} (effective depth of penetration ≈ 3δ, where current density is 5 % of the surface value)`,
     min: 0.5,
     max: 5,
+  },
+  {
+    key: 'densityRatioMin',
+    label: "Least eddy current density at the flaw, as a fraction of the density at the surface (this coil's field)",
+    defaultValue: 0.0498,
+    unit: '× surface density',
+    basis: `${TRADE} (the effective depth of penetration 3δ is where a plane wave's density has fallen to e^(−3) ≈ 0.0498 of the surface value; the same fraction is asked of the coil's own field)`,
+    min: 0.001,
+    max: 0.9,
+  },
+  {
+    key: 'phaseSeparationMinDeg',
+    label: 'Least angle between the lift-off and flaw signals on the impedance plane',
+    defaultValue: 30,
+    unit: '°',
+    basis: `${PRODUCT}: below about 30° a flaw signal is hard to tell from lift-off wobble by its phase; the trade aims for about 90° (δ ≈ 1.25 × flaw depth)`,
+    min: 1,
+    max: 90,
+  },
+  {
+    key: 'shimTolerancePercent',
+    label: 'Calibration shim within ± of the coating thickness',
+    defaultValue: 10,
+    unit: '%',
+    basis: PRODUCT,
+    min: 0,
+    max: 100,
+  },
+  {
+    key: 'liftOffSensitivityLossMaxPercent',
+    label: 'Largest loss of flaw signal to the coating before a warning',
+    defaultValue: 50,
+    unit: '%',
+    basis: `${PRODUCT} (half the signal, 6 dB, is the usual point at which a sensitivity change is re-examined)`,
+    min: 0,
+    max: 99,
+  },
+  {
+    key: 'fieldDensityRatioMin',
+    label: "Lowest current density of the coil's field at a flaw, relative to the surface",
+    defaultValue: 0.05,
+    unit: '× surface density',
+    basis: `the density a plane wave has at the trade's 3δ effective depth, e^(−3) ≈ 5 %: ${TRADE}`,
+    min: 0.001,
+    max: 1,
   },
   {
     key: 'edgeZoneUnshieldedDiameters',
@@ -174,6 +229,44 @@ export const POLICY_SETTINGS: readonly PolicySetting[] = [
     basis: TRADE,
     min: 0.1,
     max: 10,
+  },
+  {
+    key: 'ferromagneticPermeabilityMin',
+    label: 'A material counts as ferromagnetic from this relative permeability μr',
+    defaultValue: 1.05,
+    unit: 'μr',
+    basis:
+      `${TRADE} (specifications for non-magnetic grades commonly set μr ≤ 1.05; titanium alloys ≈ 1.0001 and annealed austenitic stainless ≈ 1.003–1.02 stay below it, from memory)`,
+    min: 1.000001,
+    max: 100,
+  },
+  {
+    key: 'saturatedIncrementalPermeability',
+    label: 'Incremental μr of a magnetically saturated material, when the technique gives none',
+    defaultValue: 2,
+    unit: 'μr',
+    basis:
+      'from memory, not verified against the text: under the saturating field of tube and bar test equipment the incremental permeability falls to between 1 (full saturation) and a few; 2 errs toward a shallower depth of penetration',
+    min: 1,
+    max: 1000,
+  },
+  {
+    key: 'differentialSpacingDiameters',
+    label: 'Spacing of the two windings of a differential coil, when the technique gives none',
+    defaultValue: 0.5,
+    unit: '× coil diameter',
+    basis: `${PRODUCT} (two coils of half the probe diameter side by side, or two windings of an encircling coil about half a diameter apart)`,
+    min: 0.01,
+    max: 10,
+  },
+  {
+    key: 'differentialLengthFailMultiple',
+    label: 'A differential coil fails a flaw longer than this multiple of its winding spacing',
+    defaultValue: 5,
+    unit: '× spacing',
+    basis: `${PRODUCT} (a differential coil sees a long uniform flaw only at its ends; longer than the spacing warns, longer than this multiple fails unless an absolute coil covers it)`,
+    min: 1,
+    max: 1000,
   },
   {
     key: 'certificateValidityYears',

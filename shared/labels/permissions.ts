@@ -12,7 +12,8 @@ export const SUBJECT_LABELS: Record<Exclude<SubjectName, 'all'>, string> & { all
   Area: 'areas',
   Policy: 'the policy',
   Trail: 'the trail',
-  Mailbox: 'the mailbox',
+  Mailbox: 'the mail catcher',
+  Notification: 'messages',
   Audit: 'audits',
   ChecklistRun: 'checklist runs',
   Finding: 'findings',
@@ -25,6 +26,7 @@ export const SUBJECT_LABELS: Record<Exclude<SubjectName, 'all'>, string> & { all
   Dashboard: 'the dashboard',
   Report: 'reports',
   Inspection: 'inspections',
+  Demonstration: 'capability demonstrations',
   all: 'this',
 };
 

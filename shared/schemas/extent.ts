@@ -37,12 +37,22 @@ export interface ExtentRunView {
   flawOrientation: string | null;
   coilType: string | null;
   engineVersion: string;
+  /** "Checked with engine 1.0 on 2 Dec 2026; the current engine is 2.0." */
+  engineNote: string;
   policyVersion: number;
   runAt: string;
   runBy: { id: number; name: string };
   evaluatedCount: number;
   /** Every evaluated revision that fails the rule, the finding's own technique first. */
   failing: ExtentTechnique[];
+  /** What changed since the finding's previous extent run; null for its first run. */
+  changes: {
+    previousRunId: number;
+    previousRunAt: string;
+    previousEngineVersion: string;
+    /** One line per technique revision whose standing on the rule changed, in words; empty when nothing changed. */
+    lines: string[];
+  } | null;
   /** Findings already raised against these techniques from this finding. */
   linked: Array<{ techniqueId: number; findingId: number; number: string; state: FindingState }>;
 }

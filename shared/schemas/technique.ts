@@ -107,6 +107,13 @@ export const MaterialSchema = strictObject('material', {
     max: 1_000_000,
   }).default(1),
   saturated: booleanField('saturated', 'magnetic saturation used').default(false),
+  incrementalPermeability: numberField({
+    field: 'incrementalPermeability',
+    label: 'incremental relative permeability under magnetic saturation',
+    unit: '',
+    atLeast: 1,
+    max: 1_000_000,
+  }).optional(),
   ferromagneticJustification: z
     .string({ error: 'ferromagneticJustification must be text' })
     .trim()
@@ -124,6 +131,13 @@ export const PartSchema = strictObject('part', {
     max: MAX_MM,
   }).optional(),
   wallMm: numberField({ field: 'wallMm', label: 'tube wall thickness', unit: 'mm', max: MAX_MM }).optional(),
+  coatingMm: numberField({
+    field: 'coatingMm',
+    label: 'non-conductive coating (paint, anodising, sealant) on the inspected surface',
+    unit: 'mm',
+    atLeast: 0,
+    max: 100,
+  }).optional(),
 }).superRefine((part, ctx) => {
   const need = (field: 'thicknessMm' | 'diameterMm' | 'wallMm', why: string) => {
     if (part[field] === undefined) ctx.addIssue({ code: 'custom', path: [field], message: `${field} is required for a ${part.form}: ${why}` });
@@ -163,6 +177,28 @@ export const CoilSchema = strictObject('coil', {
     1,
     16,
   ),
+  // Winding geometry for the coil field models; each is optional and defaults from diameterMm
+  // (shared/domain/fields/geometry.ts says how and why). diameterMm is the winding's outside diameter.
+  innerDiameterMm: numberField({ field: 'innerDiameterMm', label: 'winding inside diameter', unit: 'mm', atLeast: 0, max: MAX_MM }).optional(),
+  lengthMm: numberField({ field: 'lengthMm', label: 'winding length along the coil axis', unit: 'mm', max: MAX_MM }).optional(),
+  liftOffMm: numberField({
+    field: 'liftOffMm',
+    label: 'gap between the winding and the part with the probe on bare metal (wear face)',
+    unit: 'mm',
+    atLeast: 0,
+    max: 100,
+  }).optional(),
+  spacingMm: numberField({
+    field: 'spacingMm',
+    label: 'centre-to-centre spacing of the two windings of a differential coil',
+    unit: 'mm',
+    max: MAX_MM,
+  }).optional(),
+  pairAxisDeg: z
+    .number({ error: "pairAxisDeg (angle of a differential probe's coil pair to the part axis) must be a finite number of degrees" })
+    .min(-180, { error: "pairAxisDeg (angle of a differential probe's coil pair to the part axis) must be between -180 and 180°" })
+    .max(180, { error: "pairAxisDeg (angle of a differential probe's coil pair to the part axis) must be between -180 and 180°" })
+    .optional(),
 });
 
 export const ScanSchema = strictObject('scan', {
@@ -196,12 +232,26 @@ export const FlawSchema = strictObject('flaw', {
     atLeast: 0,
     max: MAX_MM,
   }).optional(),
+  throughWallMm: numberField({
+    field: 'throughWallMm',
+    label: "the flaw's own extent through the wall (default: depthMm for a surface flaw, the wall left below depthMm for a far-side flaw)",
+    unit: 'mm',
+    max: MAX_MM,
+  }).optional(),
 });
 
 export const NotchSchema = strictObject('notch', {
   orientation: enumField('orientation', FLAW_ORIENTATIONS),
   angleDeg: angleDeg.optional(),
-  depthMm: numberField({ field: 'depthMm', label: 'notch depth', unit: 'mm', max: MAX_MM }),
+  // Where the notch sits, as for a flaw; a notch written without it is on the inspected surface.
+  location: enumField('location', FLAW_LOCATIONS).default('surface'),
+  depthBelowSurfaceMm: numberField({
+    field: 'depthBelowSurfaceMm',
+    label: 'depth of a subsurface notch below the inspected surface of the standard',
+    unit: 'mm',
+    max: MAX_MM,
+  }).optional(),
+  depthMm: numberField({ field: 'depthMm', label: "notch depth (its own extent through the wall)", unit: 'mm', max: MAX_MM }),
   lengthMm: numberField({ field: 'lengthMm', label: 'notch length', unit: 'mm', max: MAX_MM }),
   edgeDistanceMm: numberField({
     field: 'edgeDistanceMm',
@@ -210,6 +260,13 @@ export const NotchSchema = strictObject('notch', {
     atLeast: 0,
     max: MAX_MM,
   }).optional(),
+}).superRefine((notch, ctx) => {
+  if (notch.location === 'subsurface' && notch.depthBelowSurfaceMm === undefined) {
+    ctx.addIssue({ code: 'custom', path: ['depthBelowSurfaceMm'], message: 'depthBelowSurfaceMm is required for a subsurface notch: how far below the inspected surface it sits' });
+  }
+  if (notch.location !== 'subsurface' && notch.depthBelowSurfaceMm !== undefined) {
+    ctx.addIssue({ code: 'custom', path: ['depthBelowSurfaceMm'], message: `depthBelowSurfaceMm applies to a subsurface notch; this notch's location is "${notch.location}"` });
+  }
 });
 
 export const ReferenceStandardSchema = strictObject('reference', {
@@ -220,6 +277,13 @@ export const ReferenceStandardSchema = strictObject('reference', {
     max: 120,
   }),
   notches: arrayOf('notches', NotchSchema, 0, 50),
+  shimMm: numberField({
+    field: 'shimMm',
+    label: 'non-conductive shim laid over the reference standard at calibration',
+    unit: 'mm',
+    atLeast: 0,
+    max: 100,
+  }).optional(),
 });
 
 const TechniqueObjectSchema = strictObject('technique', {
@@ -249,6 +313,20 @@ function checkCrossFields(technique: TechniqueShape, ctx: z.RefinementCtx) {
   const innerMm = insideDiameterMm(part);
 
   technique.coils.forEach((coil, index) => {
+    if (coil.innerDiameterMm !== undefined && coil.innerDiameterMm >= coil.diameterMm) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['coils', index, 'innerDiameterMm'],
+        message: `innerDiameterMm (winding inside diameter, ${coil.innerDiameterMm} mm) must be smaller than the coil diameter, diameterMm (${coil.diameterMm} mm)`,
+      });
+    }
+    if (coil.spacingMm !== undefined && coil.mode !== 'differential') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['coils', index, 'spacingMm'],
+        message: 'spacingMm (spacing of the two windings) applies to a differential coil; this coil is absolute',
+      });
+    }
     if (coil.type === 'encircling') {
       if (part.form !== 'bar' && part.form !== 'tube') {
         ctx.addIssue({

@@ -202,6 +202,20 @@ export interface ChecklistRunView {
   runBy: PersonRef | null;
   runAt: string;
   version: number;
+  /** The engine version the run was made with (CHECKLIST_ENGINE_VERSION at the time). */
+  engineVersion: string;
+  /** "Checked with engine 1.0 on 2 Dec 2026; the current engine is 2.0." */
+  engineNote: string;
+  /** What changed since the previous run of the same technique in this audit; null for the first run. */
+  changes: ChecklistRunChanges | null;
+}
+
+export interface ChecklistRunChanges {
+  previousRunId: number;
+  previousRunAt: string;
+  previousEngineVersion: string;
+  /** One line per result whose status changed, in words; empty when nothing changed. */
+  lines: string[];
 }
 
 export interface FindingSummaryView {

@@ -1,10 +1,10 @@
-// Demo register: the materials library and the six invented techniques of
+// Demo register: the materials library and the seven invented techniques of
 // Tarnbrook Aero Components, approved by the demo Level 3 (some fail checks on
 // purpose), plus one revision in draft. Ids go to refs for the later steps:
 // refs['technique:TAC-ET-023'], refs['techniqueRevision:TAC-ET-023'] (the approved one),
 // refs['material:<library id>'].
 import { MATERIALS } from '../../../shared/domain/materials';
-import { DEMO_SISTER_TECHNIQUE, DEMO_TECHNIQUES, DEMO_TECHNIQUE_NOTES } from '../../../shared/domain/demo-techniques';
+import { DEMO_SECOND_LAYER_TECHNIQUE, DEMO_SISTER_TECHNIQUE, DEMO_TECHNIQUES, DEMO_TECHNIQUE_NOTES } from '../../../shared/domain/demo-techniques';
 import { DEFAULT_POLICY } from '../../../shared/domain/policy';
 import { nextRevision } from '../../../shared/domain/revision-letters';
 import type { Technique as TechniqueContent } from '../../../shared/schemas/technique';
@@ -54,9 +54,11 @@ export const seedTechniques: SeedStep = async (context) => {
 
     const areaIdByName = new Map(Object.values(context.areas).map((area) => [area.name, area.id]));
     // The sister bar technique comes last: approved 45 days ago, after the receiving audit ran its checklists.
-    for (const [index, content] of [...DEMO_TECHNIQUES, DEMO_SISTER_TECHNIQUE].entries()) {
+    // The thick-skin second-layer technique was approved first, long before the field-based checks.
+    const approvalDaysAgo = (index: number) => (index < 0 ? 200 : 120 - index * 15);
+    for (const [index, content] of [[-1, DEMO_SECOND_LAYER_TECHNIQUE] as const, ...[...DEMO_TECHNIQUES, DEMO_SISTER_TECHNIQUE].entries()]) {
       const note = DEMO_TECHNIQUE_NOTES[content.code];
-      const approvedAt = new Date(now.getTime() - (120 - index * 15) * DAY_MS);
+      const approvedAt = new Date(now.getTime() - approvalDaysAgo(index) * DAY_MS);
       const technique = await Technique.create(
         { code: content.code, title: content.title, areaId: areaIdByName.get(note?.area ?? '') ?? null, createdById: level3.id },
         { transaction },

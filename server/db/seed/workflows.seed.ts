@@ -9,7 +9,7 @@ import type { AppConfig } from '../../config/env';
 import type { AppDeps } from '../../app-deps';
 import { createLogger } from '../../lib/logger';
 import { defineAbilityFor } from '../../../shared/abilities';
-import { DEMO_TECHNIQUES } from '../../../shared/domain/demo-techniques';
+import { DEMO_SECOND_LAYER_TECHNIQUE, DEMO_TECHNIQUES } from '../../../shared/domain/demo-techniques';
 import { Audit, CorrectiveAction, EvidenceFile, Finding } from '../../models';
 import { createAudit, runChecklist } from '../../services/audits.service';
 import { raiseFinding } from '../../services/findings.service';
@@ -125,7 +125,7 @@ const manual = (title: string, rule: string, requirement: string, objectiveEvide
   title, rule, requirement, objectiveEvidence, ...(techniqueCode ? { techniqueCode } : {}),
 });
 
-const technique = (code: string) => DEMO_TECHNIQUES.find((item) => item.code === code)!;
+const technique = (code: string) => [...DEMO_TECHNIQUES, DEMO_SECOND_LAYER_TECHNIQUE].find((item) => item.code === code)!;
 
 /** The scope item: the register's technique when the technique seed ran, else the demo technique itself. */
 function scopeItem(context: SeedContext, code: string) {
@@ -398,22 +398,25 @@ export const seedWorkflows: SeedStep = async (context) => {
   await d.send('quality', 'audit', cancelled, { type: 'CANCEL', reason: 'Bonded repairs moved to an outside contractor; their audit is the contractor’s' });
   d.at(20);
   await assign('frequency', frequency, 'technician', 10); // assigned, untouched
-  // Audit 2 — Structures Bay, lap-joint technique: in fieldwork, two findings waiting for review.
+  // Audit 2 — Structures Bay, lap-joint techniques: in fieldwork, three findings waiting for review. The
+  // thick-skin technique TAC-ET-036 conformed by the plane-wave figures when it was approved; the field of its
+  // 3 mm pencil probe does not reach the doubler, and the auditor raises it.
   d.at(12);
   const structures = await planAndStart(d, context, {
     key: 'structures',
-    title: 'Structures Bay: second-layer lap-joint technique',
+    title: 'Structures Bay: second-layer lap-joint techniques',
     area: 'STR',
     lead: 'auditor',
-    codes: ['TAC-ET-031'],
+    codes: ['TAC-ET-031', 'TAC-ET-036'],
     criteria: 'Company ET procedure QP-ET-01 and the aircraft maintenance manual task for lap-joint inspection',
   });
   d.at(10);
   await d.send('auditor', 'audit', structures, { type: 'START_FIELDWORK' });
-  const lapRuns = await runAll(d, 'auditor', structures, ['TAC-ET-031']);
+  const lapRuns = await runAll(d, 'auditor', structures, ['TAC-ET-031', 'TAC-ET-036']);
   d.at(8);
   const edge = await raise('edge', structures, fromResult(lapRuns, 'TAC-ET-031', 'edge-effect'));
   const coilSize = await raise('coil-size', structures, fromResult(lapRuns, 'TAC-ET-031', 'coil-size'));
+  const secondLayer = await raise('second-layer-reach', structures, fromResult(lapRuns, 'TAC-ET-036', 'penetration-depth'));
   await raise('scan-records', structures, manual(
     'Scan pattern not recorded',
     'QP-ET-01 clause 9.4',
@@ -424,6 +427,7 @@ export const seedWorkflows: SeedStep = async (context) => {
   d.at(7);
   await d.send('auditor', 'finding', edge, { type: 'SUBMIT' });
   await d.send('auditor', 'finding', coilSize, { type: 'SUBMIT' });
+  await d.send('auditor', 'finding', secondLayer, { type: 'SUBMIT' });
 
   // Audit 4 — Wheel and Brake Shop brake discs: fieldwork finished, report being written.
   d.at(6);

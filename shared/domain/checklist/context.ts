@@ -9,11 +9,14 @@ import {
   standardDepthMm,
 } from '../physics';
 import { flawNormal, orientationSensitivity, type Vec3 } from '../orientation';
+import { tubeLimitFrequencyHz } from '../fields/tube-limit-frequency';
+import { fieldRelativePermeability } from './permeability';
 import { insideDiameterMm, type Coil, type Part, type Technique } from '../../schemas/technique';
 import type { Policy } from '../policy';
 import type { RegisterFacts } from './registers';
 import type { ChecklistValues, RuleContext } from './types';
 import { coilName } from './format';
+import { createCoilFields } from './coil-field';
 
 /** Coils that go round the part or inside it: fill factor and limit frequency apply. */
 export function isEncirclingOrInternal(coil: Coil): boolean {
@@ -27,7 +30,10 @@ export function isScanningCoil(coil: Coil): boolean {
 
 export interface LimitFrequency {
   hz: number;
-  formula: 'solid-cylinder' | 'thin-wall-tube';
+  /** Bars: Förster's solid-cylinder formula. Tubes: the long-coil tube model (45° lag of the field reaching the bore). */
+  formula: 'solid-cylinder' | 'tube-model' | 'thin-wall-tube';
+  /** Tubes: the thin-wall formula's figure, kept beside the model's for comparison. */
+  thinWallHz?: number;
 }
 
 export function partLimitFrequency(part: Part, conductivityIacs: number, relativePermeability: number): LimitFrequency | null {
@@ -35,8 +41,11 @@ export function partLimitFrequency(part: Part, conductivityIacs: number, relativ
     return { hz: limitFrequencyHz(part.diameterMm, conductivityIacs, relativePermeability), formula: 'solid-cylinder' };
   }
   const innerMm = insideDiameterMm(part);
-  if (part.form === 'tube' && innerMm !== undefined && part.wallMm !== undefined) {
-    return { hz: limitFrequencyThinWallTubeHz(innerMm, part.wallMm, conductivityIacs, relativePermeability), formula: 'thin-wall-tube' };
+  if (part.form === 'tube' && innerMm !== undefined && part.wallMm !== undefined && part.diameterMm !== undefined) {
+    const hz = tubeLimitFrequencyHz(part.diameterMm / 2, innerMm / 2, conductivityMsPerMFromIacs(conductivityIacs), relativePermeability);
+    const thinWallHz = limitFrequencyThinWallTubeHz(innerMm, part.wallMm, conductivityIacs, relativePermeability);
+    // A degenerate wall where the model finds no 45° point keeps the thin-wall figure.
+    return Number.isFinite(hz) ? { hz, formula: 'tube-model', thinWallHz } : { hz: thinWallHz, formula: 'thin-wall-tube', thinWallHz };
   }
   return null;
 }
@@ -52,7 +61,9 @@ export function coilFillFactor(coil: Coil, part: Part): number | null {
 
 export function buildContext(technique: Technique, policy: Policy, registers: RegisterFacts | undefined, now: Date): RuleContext {
   const { material, part, coils, flaws } = technique;
-  const limit = partLimitFrequency(part, material.conductivityIacs, material.relativePermeability);
+  // Saturated steel is seen through its incremental permeability, not its static μr.
+  const fieldMu = fieldRelativePermeability(technique, policy);
+  const limit = partLimitFrequency(part, material.conductivityIacs, fieldMu);
 
   const standardDepth: number[][] = [];
   const effectiveDepth: number[][] = [];
@@ -64,7 +75,7 @@ export function buildContext(technique: Technique, policy: Policy, registers: Re
     const ratios: (number | null)[] = [];
     const ratioApplies = limit !== null && isEncirclingOrInternal(coil);
     for (const frequencyHz of coil.frequenciesHz) {
-      const delta = standardDepthMm(frequencyHz, material.conductivityIacs, material.relativePermeability);
+      const delta = standardDepthMm(frequencyHz, material.conductivityIacs, fieldMu);
       depths.push(delta);
       effective.push(policy.penetrationDepthFactor * delta);
       ratios.push(ratioApplies ? frequencyHz / limit.hz : null);
@@ -92,7 +103,8 @@ export function buildContext(technique: Technique, policy: Policy, registers: Re
     frequencyRatio,
     fillFactor,
     orientationSensitivity: sensitivity,
+    fieldRelativePermeability: fieldMu,
   };
   const coilNames = coils.map(coilName);
-  return { technique, policy, registers, now, values, flawNormals, coilNames };
+  return { technique, policy, registers, now, values, flawNormals, coilNames, fields: createCoilFields(technique, fieldMu) };
 }

@@ -9,12 +9,15 @@ import { orientationCoverage } from './rules/orientation-coverage';
 import { centerEffect } from './rules/center-effect';
 import { scanIndex } from './rules/scan-index';
 import { penetrationDepth } from './rules/penetration-depth';
+import { phaseSeparation } from './rules/phase-separation';
+import { liftOff } from './rules/lift-off';
 import { edgeEffect } from './rules/edge-effect';
 import { fillFactor } from './rules/fill-factor';
 import { limitFrequency } from './rules/limit-frequency';
 import { ferromagnetic } from './rules/ferromagnetic';
 import { referenceStandard } from './rules/reference-standard';
 import { coilSize } from './rules/coil-size';
+import { coilMode } from './rules/coil-mode';
 import { personnel } from './rules/personnel';
 import { equipment } from './rules/equipment';
 import { demonstratedCapability, DemonstrationFactsSchema } from './rules/demonstrated-capability';
@@ -25,12 +28,15 @@ const RULES: readonly Rule[] = [
   centerEffect,
   scanIndex,
   penetrationDepth,
+  phaseSeparation,
+  liftOff,
   edgeEffect,
   fillFactor,
   limitFrequency,
   ferromagnetic,
   referenceStandard,
   coilSize,
+  coilMode,
   personnel,
   equipment,
   demonstratedCapability,

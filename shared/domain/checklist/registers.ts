@@ -1,5 +1,5 @@
 // Facts from the registers that the server supplies to the `personnel` and
-// `equipment` rules (DOMAIN.md rule 8). The engine reads only these facts: it
+// `equipment` rules (docs/domain-rules.md, "People and equipment"). The engine reads only these facts: it
 // never looks anything up itself.
 import { z } from 'zod';
 

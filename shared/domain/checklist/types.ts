@@ -4,18 +4,22 @@ import type { Vec3 } from '../orientation';
 import type { Technique } from '../../schemas/technique';
 import type { RegisterFacts } from './registers';
 import type { DemonstrationFact } from './rules/demonstrated-capability';
+import type { CoilFields } from './coil-field';
 
 export const RULE_IDS = [
   'orientation-coverage',
   'center-effect',
   'scan-index',
   'penetration-depth',
+  'phase-separation',
+  'lift-off',
   'edge-effect',
   'fill-factor',
   'limit-frequency',
   'ferromagnetic',
   'reference-standard',
   'coil-size',
+  'coil-mode',
   'personnel',
   'equipment',
   'demonstrated-capability',
@@ -26,7 +30,7 @@ export const RULE_IDS = [
  * changes, so a recorded run (an extent-of-condition run, say) tells which
  * logic produced its list.
  */
-export const CHECKLIST_ENGINE_VERSION = '1.0';
+export const CHECKLIST_ENGINE_VERSION = '2.0';
 
 export type RuleId = (typeof RULE_IDS)[number];
 export type RuleStatus = 'pass' | 'fail' | 'warn' | 'not_applicable';
@@ -64,6 +68,8 @@ export interface ChecklistValues {
   fillFactor: (number | null)[];
   /** orientationSensitivity[f][c]: |current · normal| of flaw f for coil c. */
   orientationSensitivity: number[][];
+  /** μr the field models use (the incremental permeability of a saturated part, else the material's). */
+  fieldRelativePermeability: number;
 }
 
 export interface ChecklistSummary {
@@ -106,6 +112,8 @@ export interface RuleContext {
   /** "coil 1 (5 mm shielded surface)" for each coil, formatted once per evaluation. */
   coilNames: string[];
   demonstrations?: DemonstrationFact[];
+  /** This technique's coil fields at its flaws (planar and long-coil models), memoised for the evaluation. */
+  fields: CoilFields;
 }
 
 export type Rule = (context: RuleContext, results: RuleResult[]) => void;

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate, plateTechnique, resultOf, tubeTechnique } from './techniques';
 
-// Rule 4 (DOMAIN.md): edge zone 2 coil diameters unshielded, 0.5 shielded ([mem], policy);
+// Rule 4 (docs/domain-rules.md): edge zone 2 coil diameters unshielded, 0.5 shielded (from memory, policy),
+// measured beyond the winding: the coil centre must stay radius + zone from the edge (geometry);
 // pass inside it only with a guide AND a reference notch at the same edge distance.
 
 const unshieldedCoil = [{ type: 'surface' as const, diameterMm: 5, shielded: false, mode: 'absolute' as const, frequenciesHz: [100_000] }];
@@ -57,15 +58,27 @@ describe('edge-effect', () => {
   });
 
   it('passes outside the edge zone, which is smaller for a shielded coil', () => {
-    // Unshielded 5 mm: zone 10 mm; shielded: 2.5 mm. The scan keeps 3 mm from the edge.
-    const shielded = evaluate(plateTechnique({ scan: { indexMm: 2, minEdgeDistanceMm: 3 } }));
-    expect(resultOf(shielded, 'edge-effect')).toMatchObject({ status: 'pass', values: { edgeZoneMm: 2.5 } });
-    const farAway = evaluate(plateTechnique({ coils: unshieldedCoil, scan: { indexMm: 2, minEdgeDistanceMm: 10 } }));
-    expect(resultOf(farAway, 'edge-effect').status).toBe('pass');
+    // Shielded 5 mm: zone 0.5 × 5 = 2.5 mm beyond the winding, so the centre needs 2.5 + 2.5 = 5 mm.
+    const shielded = evaluate(plateTechnique({ scan: { indexMm: 2, minEdgeDistanceMm: 5 } }));
+    expect(resultOf(shielded, 'edge-effect')).toMatchObject({ status: 'pass', values: { edgeZoneMm: 2.5, clearCentreDistanceMm: 5 } });
+    // Unshielded 5 mm: zone 10 mm beyond the winding, so the centre needs 2.5 + 10 = 12.5 mm.
+    const farAway = evaluate(plateTechnique({ coils: unshieldedCoil, scan: { indexMm: 2, minEdgeDistanceMm: 12.5 } }));
+    expect(resultOf(farAway, 'edge-effect')).toMatchObject({ status: 'pass', values: { clearCentreDistanceMm: 12.5 } });
+  });
+
+  it('does not put the winding at the edge: a shielded coil 0.5 D from the edge is inside its zone', () => {
+    // Before the fix the zone was measured from the centre: 2.5 mm passed, with the winding (radius 2.5 mm) on the edge.
+    const atWinding = resultOf(evaluate(plateTechnique({ scan: { indexMm: 2, minEdgeDistanceMm: 2.5 } })), 'edge-effect');
+    expect(atWinding.status).toBe('fail');
+    expect(atWinding.message).toMatch(/its centre must stay 5 mm from an edge \(radius 2\.5 mm \+ 2\.5 mm\)/);
+    expect(atWinding.message).toMatch(/keep the coil centre at least 5 mm from the edge/);
+    const overhanging = resultOf(evaluate(plateTechnique({ scan: { indexMm: 2, minEdgeDistanceMm: 1 } })), 'edge-effect');
+    expect(overhanging.message).toMatch(/winding itself overhangs the edge/);
   });
 
   it('takes the edge zone from the policy', () => {
-    const output = evaluate(plateTechnique({ scan: { indexMm: 2, minEdgeDistanceMm: 3 } }), { policy: { edgeZoneShieldedDiameters: 1 } });
+    // Shielded 5 mm clears at 5 mm with the default 0.5 D zone, not with a 1 D zone (centre needs 7.5 mm).
+    const output = evaluate(plateTechnique({ scan: { indexMm: 2, minEdgeDistanceMm: 5 } }), { policy: { edgeZoneShieldedDiameters: 1 } });
     expect(resultOf(output, 'edge-effect').status).toBe('fail');
   });
 

@@ -68,7 +68,8 @@ export function tubeTechnique(patch: Patch = {}): TechniqueInput {
       coils: [{ type: 'bobbin', diameterMm: 15.5, mode: 'differential', frequenciesHz: [10_000] }],
       scan: {},
       flaws: [{ id: 'axial-crack', orientation: 'axial', location: 'far-side', depthMm: 1.0, lengthMm: 10 }],
-      reference: { conductivityIacs: 28, notches: [{ orientation: 'axial', depthMm: 0.5, lengthMm: 10 }] },
+      // A far-side notch 0.24 mm deep: the wall left below the crack's 1.0 mm depth from the bore.
+      reference: { conductivityIacs: 28, notches: [{ orientation: 'axial', location: 'far-side', depthMm: 0.24, lengthMm: 10 }] },
     },
     patch,
   );

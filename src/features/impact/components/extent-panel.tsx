@@ -4,6 +4,8 @@
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { ExtentRunView, ExtentTechnique } from '../../../../shared/schemas/extent';
+import { CHECKLIST_ENGINE_VERSION } from '../../../../shared/domain/checklist/types';
+import { ruleName } from '../../../../shared/domain/checklist/run-history';
 import { FINDING_CLASSES, type FindingClass } from '../../../../machines/finding.machine';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
@@ -88,6 +90,25 @@ export function ExtentPanel({ finding, onChange }: { finding: ExtentFinding; onC
   );
 }
 
+function RunEngineNote({ note, outdated }: { note: string; outdated: boolean }) {
+  return <p className={`text-xs ${outdated ? 'font-bold text-warn' : 'text-ink-soft'}`}>{note}</p>;
+}
+
+function ExtentChanges({ changes }: { changes: NonNullable<ExtentRunView['changes']> }) {
+  const since = `Since the run of ${formatUtc(changes.previousRunAt)} (engine ${changes.previousEngineVersion})`;
+  if (changes.lines.length === 0) return <p className="text-xs text-ink-soft">{since}: no technique changed its standing on this rule.</p>;
+  return (
+    <div className="rounded border border-ink/10 bg-ink/5 px-3 py-2 text-xs">
+      <p className="font-bold">{since}, what changed:</p>
+      <ul className="mt-1 list-disc pl-5">
+        {changes.lines.map((line) => (
+          <li key={line}>{line}</li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 function ExtentRunResult({ run, finding, mayRaise, onChange }: { run: ExtentRunView; finding: ExtentFinding; mayRaise: boolean; onChange?: () => void }) {
   const [scope, setScope] = useState<Scope>('rule');
   const [chosen, setChosen] = useState<Set<number>>(new Set());
@@ -111,10 +132,12 @@ function ExtentRunResult({ run, finding, mayRaise, onChange }: { run: ExtentRunV
   return (
     <div className="flex flex-col gap-3">
       <p className="text-xs text-ink-soft">
-        Run #{run.id} by {run.runBy.name} at {formatUtc(run.runAt)} · engine {run.engineVersion}, policy version {run.policyVersion}
+        Run #{run.id} by {run.runBy.name} at {formatUtc(run.runAt)} · policy version {run.policyVersion}
         {run.policyVersion === 0 && ' (the defaults, never changed)'} ·{' '}
-        {run.evaluatedCount} approved technique(s) evaluated for <strong className="text-ink">{run.rule}</strong>
+        {run.evaluatedCount} approved technique(s) evaluated for <strong className="text-ink">{ruleName(run.rule)}</strong>
       </p>
+      <RunEngineNote note={run.engineNote} outdated={run.engineVersion !== CHECKLIST_ENGINE_VERSION} />
+      {run.changes && <ExtentChanges changes={run.changes} />}
       <fieldset className="flex flex-wrap gap-4 text-sm">
         <legend className="sr-only">Which techniques to show</legend>
         {(

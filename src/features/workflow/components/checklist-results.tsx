@@ -4,6 +4,8 @@ import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { ChecklistRunView } from '../../../../shared/schemas/workflow';
 import type { RuleResult } from '../../../../shared/domain/checklist';
+import { CHECKLIST_ENGINE_VERSION } from '../../../../shared/domain/checklist/types';
+import { ruleName } from '../../../../shared/domain/checklist/run-history';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/states';
 import { useRaiseFinding, useUpdateChecklistNotes } from '../api/workflow';
@@ -33,6 +35,21 @@ function Values({ values }: { values: RuleResult['values'] }) {
   );
 }
 
+function RunChanges({ changes }: { changes: NonNullable<ChecklistRunView['changes']> }) {
+  const since = `Since the run of ${changes.previousRunAt.slice(0, 16).replace('T', ' ')} UTC (engine ${changes.previousEngineVersion})`;
+  if (changes.lines.length === 0) return <p className="mb-2 text-xs text-ink-soft">{since}: no result changed.</p>;
+  return (
+    <div className="mb-2 rounded border border-ink/10 bg-ink/5 px-3 py-2 text-xs" aria-label="What changed since the previous run">
+      <p className="font-bold">{since}, what changed:</p>
+      <ul className="mt-1 list-disc pl-5">
+        {changes.lines.map((line) => (
+          <li key={line}>{line}</li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 export function ChecklistResults({ auditId, run, editable, canRaise }: { auditId: number; run: ChecklistRunView; editable: boolean; canRaise: boolean }) {
   const output = run.output as { verdict: string; summary: Record<string, number>; results: RuleResult[] };
   const [notes, setNotes] = useState<Record<string, string>>(run.notes);
@@ -53,6 +70,8 @@ export function ChecklistResults({ auditId, run, editable, canRaise }: { auditId
           {output.summary.pass} pass · {output.summary.fail} fail · {output.summary.warn} warn · run by {run.runBy?.displayName} on {dates.dateTime(run.runAt)}
         </p>
       </header>
+      <p className={`mb-2 text-xs ${run.engineVersion === CHECKLIST_ENGINE_VERSION ? 'text-ink-soft' : 'font-bold text-warn'}`}>{run.engineNote}</p>
+      {run.changes && <RunChanges changes={run.changes} />}
       <ol className="flex flex-col divide-y divide-ink/5">
         {output.results.map((result, index) => (
           <li key={index} className="py-2 text-sm" data-status={result.status}>
