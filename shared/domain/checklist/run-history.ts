@@ -1,31 +1,11 @@
 // What a stored checklist or extent run says about the engine that made it, and what
 // changed when it was run again: in words, for screens and reports (no rule ids).
 import { CHECKLIST_ENGINE_VERSION, type RuleResult, type RuleStatus } from './types';
+import { ruleLabel } from '../../labels/rules';
 
-/** The name of each rule as people read it. Unknown ids (a rule of a later engine) read as themselves, de-hyphenated. */
-export const RULE_NAMES: Readonly<Record<string, string>> = {
-  'orientation-coverage': 'Orientation coverage',
-  'center-effect': 'Center effect',
-  'scan-index': 'Scan index',
-  'penetration-depth': 'Penetration depth',
-  'phase-separation': 'Phase separation',
-  'lift-off': 'Lift-off and coating',
-  'edge-effect': 'Edge effect',
-  'fill-factor': 'Fill factor',
-  'limit-frequency': 'Limit frequency',
-  ferromagnetic: 'Ferromagnetic material',
-  'reference-standard': 'Reference standard',
-  'coil-size': 'Coil size against crack length',
-  'coil-mode': 'Coil mode (absolute or differential)',
-  personnel: 'People',
-  equipment: 'Equipment',
-};
-
+/** The name of each rule as people read it (one set of labels for screens, PDFs and e-mails). */
 export function ruleName(rule: string): string {
-  const name = RULE_NAMES[rule];
-  if (name) return name;
-  const words = rule.replace(/[-_]+/g, ' ');
-  return words.charAt(0).toUpperCase() + words.slice(1);
+  return ruleLabel(rule);
 }
 
 const STATUS_WORDS: Readonly<Record<RuleStatus, string>> = { pass: 'pass', fail: 'fail', warn: 'warning', not_applicable: 'not applicable' };

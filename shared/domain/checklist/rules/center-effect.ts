@@ -65,7 +65,7 @@ function applies(technique: Technique): number[] {
 }
 
 function judgeFlaw(technique: Technique, policy: Policy, bar: BarField, encircling: number[], flaw: Flaw, coilNames: string[]): RuleResult {
-  const minimum = policy.fieldDensityRatioMin;
+  const minimum = policy.densityRatioMin;
   const depthMm = depthBelowSurfaceMm(flaw, bar.radiusMm);
   const flawRadiusMm = bar.radiusMm - depthMm;
   // The best coil and frequency for this flaw: the highest density at its radius.

@@ -5,7 +5,6 @@ import { useNavigate } from 'react-router-dom';
 import type { ChecklistRunView } from '../../../../shared/schemas/workflow';
 import type { RuleResult } from '../../../../shared/domain/checklist';
 import { CHECKLIST_ENGINE_VERSION } from '../../../../shared/domain/checklist/types';
-import { ruleName } from '../../../../shared/domain/checklist/run-history';
 import { Button } from '../../../components/ui/button';
 import { ErrorNotice } from '../../../components/ui/states';
 import { useRaiseFinding, useUpdateChecklistNotes } from '../api/workflow';
