@@ -257,6 +257,34 @@ export interface CoilFields {
   flawResponseWithLiftOff(coilIndex: number, frequencyIndex: number, flawIndex: number, liftOffMm: number): Complex | null;
 }
 
+// Frequency searches outlive one evaluation: the editor re-evaluates the same coil and flaw on
+// every keystroke elsewhere in the technique. Keyed by everything the search reads.
+const searchCache = new Map<string, unknown>();
+const SEARCH_CACHE_LIMIT = 2000;
+
+function searchKey(technique: Technique, relativePermeability: number, coilIndex: number, flawIndex: number): string {
+  const { part, material } = technique;
+  const coil = technique.coils[coilIndex];
+  const flaw = technique.flaws[flawIndex];
+  return [
+    material.conductivityIacs,
+    relativePermeability,
+    part.form,
+    part.thicknessMm,
+    part.diameterMm,
+    part.wallMm,
+    part.coatingMm,
+    coil.type,
+    coil.diameterMm,
+    coil.innerDiameterMm,
+    coil.lengthMm,
+    coil.liftOffMm,
+    flaw.location,
+    flaw.depthMm,
+    flaw.metalAboveMm,
+  ].join('|');
+}
+
 export function createCoilFields(technique: Technique, relativePermeability: number): CoilFields {
   const setting: FieldSetting = { technique, relativePermeability };
   const memo = new Map<string, unknown>();
@@ -264,6 +292,13 @@ export function createCoilFields(technique: Technique, relativePermeability: num
     if (memo.has(key)) return memo.get(key) as T;
     const value = make();
     memo.set(key, value);
+    return value;
+  };
+  const lasting = <T>(key: string, make: () => T): T => {
+    if (searchCache.has(key)) return searchCache.get(key) as T;
+    const value = make();
+    if (searchCache.size >= SEARCH_CACHE_LIMIT) searchCache.clear();
+    searchCache.set(key, value);
     return value;
   };
   return {
@@ -274,12 +309,12 @@ export function createCoilFields(technique: Technique, relativePermeability: num
         return coilFieldAtDepth(setting, technique.coils[c], technique.coils[c].frequenciesHz[i], modelDepthMm(flaw), { flaw: flawLayers(flaw) });
       }),
     highestReachingHz: (c, f, min) =>
-      once(`reach|${c}|${f}|${min}`, () => {
+      lasting(`reach|${min}|${searchKey(technique, relativePermeability, c, f)}`, () => {
         const flaw = technique.flaws[f];
         return highestReachingFrequencyHz(setting, technique.coils[c], modelDepthMm(flaw), min, flawLayers(flaw));
       }),
     bestSeparation: (c, f, ceiling) =>
-      once(`best|${c}|${f}|${ceiling}`, () => {
+      lasting(`best|${ceiling}|${searchKey(technique, relativePermeability, c, f)}`, () => {
         const flaw = technique.flaws[f];
         return bestPhaseSeparation(setting, technique.coils[c], modelDepthMm(flaw), ceiling, flawLayers(flaw));
       }),
