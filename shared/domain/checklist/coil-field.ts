@@ -4,7 +4,7 @@
 // coils the long-coil model of a bar or tube. The plane wave e^(−x/δ) rides along for
 // comparison. Solutions are cached by (coil, layers, frequency) in the models themselves.
 import type Complex from 'complex.js';
-import { conductivityMsPerMFromIacs, standardDepthMm } from '../physics';
+import { conductivityMsPerMFromIacs, MU0_H_PER_M, standardDepthMm } from '../physics';
 import { coilGeometry } from '../fields/geometry';
 import { lineAngleDeg, solvePlanar } from '../fields/planar';
 import { solveLongCoil } from '../fields/cylinder';
@@ -151,7 +151,6 @@ export function highestReachingFrequencyHz(
   densityRatioMin: number,
   flaw?: Pick<Flaw, 'depthMm' | 'metalAboveMm'>,
 ): number | null {
-  const { material } = setting.technique;
   const metalMm = flaw?.metalAboveMm ?? depthMm;
   // δ = 10·x: within a few per cent of the static field's reach; δ = x/20: far beyond reach.
   const lowHz = frequencyForDelta(setting, 10 * Math.max(metalMm, 0.01));
@@ -166,7 +165,6 @@ export function highestReachingFrequencyHz(
     if (ratioAt(Math.exp(mid)) >= densityRatioMin) lo = mid;
     else hi = mid;
   }
-  void material;
   return Math.exp(lo);
 }
 
@@ -174,7 +172,7 @@ function frequencyForDelta(setting: FieldSetting, deltaMm: number): number {
   const { material } = setting.technique;
   const sigma = conductivityMsPerMFromIacs(material.conductivityIacs) * 1e6;
   const deltaM = deltaMm / 1000;
-  return 1 / (Math.PI * 4e-7 * Math.PI * setting.relativePermeability * sigma * deltaM * deltaM);
+  return 1 / (Math.PI * MU0_H_PER_M * setting.relativePermeability * sigma * deltaM * deltaM);
 }
 
 export interface BestSeparation {
