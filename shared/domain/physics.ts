@@ -81,6 +81,8 @@ export function limitFrequencyHz(diameterMm: number, conductivityIacs: number, r
 /**
  * Limit frequency of a thin-walled tube, f_g[Hz] = 5066/(σ[MS/m]·μr·d_i[cm]·w[cm]),
  * d_i the inside diameter and w the wall (Förster's thin-wall form, from memory).
+ * The engine's tube f_g comes from the tube model (fields/tube-limit-frequency.ts); this
+ * formula is its thin-wall cross-check and is reported beside it.
  */
 export function limitFrequencyThinWallTubeHz(
   insideDiameterMm: number,

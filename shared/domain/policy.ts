@@ -29,6 +29,7 @@ export const POLICY_KEYS = [
   'phaseSeparationMinDeg',
   'shimTolerancePercent',
   'liftOffSensitivityLossMaxPercent',
+  'fieldDensityRatioMin',
   'edgeZoneUnshieldedDiameters',
   'edgeZoneShieldedDiameters',
   'edgeNotchToleranceMm',
@@ -121,6 +122,15 @@ export const POLICY_SETTINGS: readonly PolicySetting[] = [
     basis: `${PRODUCT} (half the signal, 6 dB, is the usual point at which a sensitivity change is re-examined)`,
     min: 0,
     max: 99,
+  },
+  {
+    key: 'fieldDensityRatioMin',
+    label: "Lowest current density of the coil's field at a flaw, relative to the surface",
+    defaultValue: 0.05,
+    unit: '× surface density',
+    basis: `the density a plane wave has at the trade's 3δ effective depth, e^(−3) ≈ 5 %: ${TRADE}`,
+    min: 0.001,
+    max: 1,
   },
   {
     key: 'edgeZoneUnshieldedDiameters',

@@ -9,13 +9,14 @@ import {
   standardDepthMm,
 } from '../physics';
 import { flawNormal, orientationSensitivity, type Vec3 } from '../orientation';
+import { tubeLimitFrequencyHz } from '../fields/tube-limit-frequency';
+import { fieldRelativePermeability } from './permeability';
 import { insideDiameterMm, type Coil, type Part, type Technique } from '../../schemas/technique';
 import type { Policy } from '../policy';
 import type { RegisterFacts } from './registers';
 import type { ChecklistValues, RuleContext } from './types';
 import { coilName } from './format';
 import { createCoilFields } from './coil-field';
-import { fieldRelativePermeability } from './permeability';
 
 /** Coils that go round the part or inside it: fill factor and limit frequency apply. */
 export function isEncirclingOrInternal(coil: Coil): boolean {
@@ -29,7 +30,10 @@ export function isScanningCoil(coil: Coil): boolean {
 
 export interface LimitFrequency {
   hz: number;
-  formula: 'solid-cylinder' | 'thin-wall-tube';
+  /** Bars: Förster's solid-cylinder formula. Tubes: the long-coil tube model (45° lag of the field reaching the bore). */
+  formula: 'solid-cylinder' | 'tube-model' | 'thin-wall-tube';
+  /** Tubes: the thin-wall formula's figure, kept beside the model's for comparison. */
+  thinWallHz?: number;
 }
 
 export function partLimitFrequency(part: Part, conductivityIacs: number, relativePermeability: number): LimitFrequency | null {
@@ -37,8 +41,11 @@ export function partLimitFrequency(part: Part, conductivityIacs: number, relativ
     return { hz: limitFrequencyHz(part.diameterMm, conductivityIacs, relativePermeability), formula: 'solid-cylinder' };
   }
   const innerMm = insideDiameterMm(part);
-  if (part.form === 'tube' && innerMm !== undefined && part.wallMm !== undefined) {
-    return { hz: limitFrequencyThinWallTubeHz(innerMm, part.wallMm, conductivityIacs, relativePermeability), formula: 'thin-wall-tube' };
+  if (part.form === 'tube' && innerMm !== undefined && part.wallMm !== undefined && part.diameterMm !== undefined) {
+    const hz = tubeLimitFrequencyHz(part.diameterMm / 2, innerMm / 2, conductivityMsPerMFromIacs(conductivityIacs), relativePermeability);
+    const thinWallHz = limitFrequencyThinWallTubeHz(innerMm, part.wallMm, conductivityIacs, relativePermeability);
+    // A degenerate wall where the model finds no 45° point keeps the thin-wall figure.
+    return Number.isFinite(hz) ? { hz, formula: 'tube-model', thinWallHz } : { hz: thinWallHz, formula: 'thin-wall-tube', thinWallHz };
   }
   return null;
 }

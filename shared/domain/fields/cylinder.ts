@@ -159,13 +159,29 @@ export function transmittedFieldRatio(outerRadiusMm: number, innerRadiusMm: numb
 
 // ---------------------------------------------------------------- solution
 
+/** Out-of-range input (an internal coil without a bore, a wall thicker than the radius, f ≤ 0): NaN throughout, never an exception. */
+function invalidSolution(delta: number): LongCoilSolution {
+  const nan = new Complex(NaN, NaN);
+  return {
+    impedanceNormalised: nan,
+    effectivePermeability: nan,
+    fillFactor: NaN,
+    standardDepthMm: delta,
+    fillFactorDirection: nan,
+    currentDensityAtRadius: () => nan,
+    densityRatioAtDepth: () => NaN,
+    flawResponseAtDepth: () => nan,
+  };
+}
+
 function solve(input: LongCoilInput): LongCoilSolution {
   const { placement, outerRadiusMm: a, coilRadiusMm: c, conductivityMsPerM, relativePermeability: mu, frequencyHz } = input;
   const b = input.innerRadiusMm ?? 0;
   const delta = standardDepthFromSigmaMm(frequencyHz, conductivityMsPerM, mu);
   const k = new Complex(1, -1).div(delta);
   const solid = b <= 0;
-  if (placement === 'internal' && solid) throw new RangeError('An internal coil needs a tube: give innerRadiusMm.');
+  const valid = a > 0 && b < a && c > 0 && conductivityMsPerM > 0 && mu > 0 && frequencyHz > 0 && !(placement === 'internal' && solid);
+  if (!valid) return invalidSolution(delta);
   const field = solid ? solidBar(a, k, delta, mu) : tubeWall(placement, a, b, c, k, mu);
   const fillFactor = Math.min(1, placement === 'encircling' ? (a * a) / (c * c) : (c * c) / (b * b));
 

@@ -46,18 +46,19 @@ export function tubeLimitFrequencyHz(outerRadiusMm: number, innerRadiusMm: numbe
   );
   let low = Math.log(estimate / 8);
   let gLow = logLag(low);
-  while (gLow <= 0) {
+  for (let step = 0; gLow <= 0 && step < 100; step++) {
     low -= Math.LN2 * 4;
     gLow = logLag(low);
   }
   let high = low + Math.LN2;
   let gHigh = logLag(high);
-  while (gHigh > 0) {
+  for (let step = 0; gHigh > 0 && step < 400; step++) {
     low = high;
     gLow = gHigh;
     high += Math.LN2;
     gHigh = logLag(high);
   }
+  if (!(gLow > 0 && gHigh <= 0)) return NaN; // no crossing found (degenerate input)
   let side = 0;
   for (let i = 0; i < 60 && high - low > 1e-9; i++) {
     const mid = (low * gHigh - high * gLow) / (gHigh - gLow);

@@ -3,9 +3,9 @@ import { describe, expect, it } from 'vitest';
 import { besselJScaled, besselJY, hankelScaled, kelvinBerBei, kelvinKerKei } from '../../../shared/domain/fields/bessel';
 
 // Check values come from outside the code under test: Abramowitz & Stegun's tables, identities
-// of A&S chapter 9, and Bessel's integral computed here by quadrature. No general-purpose npm
-// library computes Bessel functions of complex argument (mathjs 15 has none; @stdlib's are real),
-// so library values are not used.
+// of A&S chapter 9, Bessel's integral computed here by quadrature, and values computed once with
+// scipy 1.17.1 (scipy.special). No general-purpose npm library computes Bessel functions of
+// complex argument (mathjs 15 has none; @stdlib's and the `bessel` package's are real only).
 
 /** Bessel's integral J_n(z) = (1/π)∫0^π cos(nτ − z sin τ) dτ (A&S 9.1.21), by the trapezoid rule (exponentially accurate for this periodic integrand). */
 function besselIntegral(order: number, z: Complex): Complex {
@@ -93,6 +93,51 @@ describe('complex argument: Bessel integral and Wronskian', () => {
       const factor = Math.exp(-Math.abs(z.im));
       expect(relativeError(scaled.order0, besselIntegral(0, z).mul(factor))).toBeLessThan(1e-8);
       expect(relativeError(scaled.order1, besselIntegral(1, z).mul(factor))).toBeLessThan(1e-8);
+    }
+  });
+});
+
+describe('against general-purpose libraries (computed once: scipy 1.17.1 scipy.special, mpmath 1.3.0)', () => {
+  // [z, J0, J1, Y0, Y1] from scipy 1.17.1 (scipy.special.jv / yv), each as [re, im].
+  const table: [Complex, [number, number][]][] = [
+    [new Complex(3, -4), [[-8.812143793697905, 4.598437899743034], [3.654110281414263, 8.403104256583088], [4.6047596915010125, 8.811077140823224], [8.404608446176784, -3.6473524391213576]]],
+    [new Complex(7.7, -7.7), [[141.9045226522711, 228.69262833696365], [226.05300428479066, -129.6278323934555], [228.69265321242386, -141.90441693252401], [-129.62794075661265, -226.0529752749793]]],
+    [new Complex(12, -12), [[9028.049951029607, -13019.715144425685], [-12556.57597156887, -9117.279020719421], [-13019.715145590697, -9028.049951240006], [-9117.27902052843, 12556.575970375308]]],
+    [new Complex(20, 5), [[11.573058161513323, -6.048023313832591], [6.288123818649647, 11.36386341868036], [6.048300582134626, 11.571908973252363], [-11.365013170631222, 6.287817980630435]]],
+    [new Complex(-4, 2), [[-1.3787022343924844, -0.3905423570667095], [0.5073525508045522, -1.2263041391310046], [0.3996257860226193, -1.4282395814360993], [1.1732982229552469, 0.5025009042928297]]],
+    [new Complex(-6, -9), [[828.0057538296737, 547.4028053297884], [504.0054748957725, -810.4804134003539], [547.4027756709612, -828.005753973617], [-810.4804125171071, -504.0055056792461]]],
+    [new Complex(50, -50), [[1.9464557274457106e20, -1.508921029751129e20], [-1.4915953875546276e20, -1.9443066560913808e20], [-1.508921029751129e20, -1.946455727445711e20], [-1.9443066560913808e20, 1.4915953875546276e20]]],
+  ];
+  it.each(table.map(([z, values]) => [z.toString(), z, values] as const))('J0, J1, Y0, Y1 at %s', (_, z, values) => {
+    const { j0, j1, y0, y1 } = besselJY(z);
+    [j0, j1, y0, y1].forEach((got, i) => {
+      expect(relativeError(got, new Complex(values[i][0], values[i][1]))).toBeLessThan(1e-8);
+    });
+  });
+
+  it('scaled Hankel functions at 500 − 500i (scipy hankel1e, hankel2e)', () => {
+    const { first, second } = hankelScaled(new Complex(500, -500));
+    expect(relativeError(first.order0, new Complex(0.027723284402678704, -0.01148742464899412))).toBeLessThan(1e-10);
+    expect(relativeError(first.order1, new Complex(-0.011467812359597254, -0.02771516935448239))).toBeLessThan(1e-10);
+    expect(relativeError(second.order0, new Complex(0.011477623700122392, 0.02771922473018799))).toBeLessThan(1e-10);
+    expect(relativeError(second.order1, new Complex(-0.02772734839033136, 0.011497215198600667))).toBeLessThan(1e-10);
+  });
+
+  it('Kelvin functions at x = 3, 4 and 10 (mpmath 1.3.0 at 30 digits: ber, bei, ker, kei)', () => {
+    // mpmath rather than scipy here: scipy 1.17.1's ber(10) = 138.84046601 is itself 5e−10 off mpmath's 138.84046594.
+    const table = [
+      { x: 3, ber: -0.22138024959869389, bei: 1.9375867852660428, ker: -0.067029233303798698, kei: -0.051121884045986781 },
+      { x: 4, ber: -2.5634165572585798, bei: 2.2926903226992998, ker: -0.036178847899547611, kei: 0.0021983992949725199 },
+      { x: 10, ber: 138.84046594163265, bei: 56.370458553906638, ker: 0.00012946633021480612, kei: -0.0003075245690881442 },
+    ];
+    for (const { x, ber, bei, ker, kei } of table) {
+      const first = kelvinBerBei(x);
+      const second = kelvinKerKei(x);
+      expect(Math.abs(first.ber - ber)).toBeLessThan(1e-12 * Math.abs(ber));
+      expect(Math.abs(first.bei - bei)).toBeLessThan(1e-12 * Math.abs(bei));
+      // ker, kei decay like e^(−x/√2) and are formed from growing functions below |z| = 11: the documented ≲ 1e−9.
+      expect(Math.abs(second.ker - ker)).toBeLessThan(2e-9 * Math.abs(ker));
+      expect(Math.abs(second.kei - kei)).toBeLessThan(2e-9 * Math.abs(kei));
     }
   });
 });

@@ -36,12 +36,17 @@ describe('solid bar in an encircling coil', () => {
     expect(bar.densityRatioAtDepth(11)).toBeCloseTo(0.119, 3);
     expect(bar.densityRatioAtDepth(12)).toBeCloseTo(0.04, 3);
     expect(bar.densityRatioAtDepth(12.5)).toBe(0); // J1(0) = 0: nothing at the axis
+    // The same from scipy 1.17.1, |jv(1, kr)/jv(1, ka)|, computed once: 0.596953155465353, 0.3579345617597585,
+    // 0.11929988403479361, 0.03976658012313495.
+    const scipyValues = [0.596953155465353, 0.3579345617597585, 0.11929988403479361, 0.03976658012313495];
+    [5, 8, 11, 12].forEach((depth, i) => expect(bar.densityRatioAtDepth(depth)).toBeCloseTo(scipyValues[i], 12));
     // The plane wave at 12 mm: e^(−12/14.42) = 0.435 (work item).
     expect(Math.exp(-12 / bar.standardDepthMm)).toBeCloseTo(0.435, 3);
   });
 
   it("matches Förster's tabulated μ_eff at f/f_g = 1, 10 and 100", () => {
-    // Förster's table of the long solid cylinder, from memory: 0.9798 − j0.1216, 0.4678 − j0.3494, 0.1416 − j0.1313.
+    // Förster's table of the long solid cylinder, from memory: 0.9798 − j0.1216, 0.4678 − j0.3494, 0.1416 − j0.1313
+    // (the f/f_g = 100 pair is the least certain of the three; the asymptote test below checks that end independently).
     const table = [
       { ratio: 1, re: 0.9798, im: -0.1216 },
       { ratio: 10, re: 0.4678, im: -0.3494 },
@@ -52,6 +57,17 @@ describe('solid bar in an encircling coil', () => {
       const mu = solveLongCoil({ ...bar6061, frequencyHz: ratio * fg }).effectivePermeability;
       expect(mu.re).toBeCloseTo(re, 3);
       expect(mu.im).toBeCloseTo(im, 3);
+    }
+    // The same three points from general-purpose libraries, computed once: 2·jv(1,z)/(z·jv(0,z)), z = √(−j f/f_g),
+    // scipy 1.17.1 (scipy.special.jv), agreeing with mpmath 1.3.0 (besselj) to 15 digits.
+    const library = [
+      { ratio: 1, re: 0.9797672048237044, im: -0.12152309133572033 },
+      { ratio: 10, re: 0.4677866615938231, im: -0.3494371877447498 },
+      { ratio: 100, re: 0.141625468347904, im: -0.13124807777628505 },
+    ];
+    for (const { ratio, re, im } of library) {
+      const mu = solveLongCoil({ ...bar6061, frequencyHz: ratio * fg }).effectivePermeability;
+      expect(mu.sub(new Complex(re, im)).abs()).toBeLessThan(1e-10);
     }
     // Cross-check of f_g itself with the engine's formula 5066/(σ·d²) [pub].
     expect(fg).toBeCloseTo(limitFrequencyHz(25, 42), 6);
@@ -149,6 +165,22 @@ describe('tube in an encircling coil and with an internal coil', () => {
     expect(mu.sub(expected).abs()).toBeLessThan(0.01);
   });
 
+  it('matches an independent J/Y solution of the same boundary conditions in 40-digit arithmetic', () => {
+    // Computed once with mpmath 1.3.0 (besselj, bessely, lu_solve at mp.dps = 40). The same solve in double precision
+    // with scipy 1.17.1 jv/yv is 1e−4 off in the magnetic and the high-frequency cases (J and Y both grow like
+    // e^|Im z| and the wall's solution is their small difference), which is why the model works in scaled Hankel functions.
+    const cases: [LongCoilInput, number, number][] = [
+      [{ placement: 'encircling', outerRadiusMm: 12.5, innerRadiusMm: 8, coilRadiusMm: 13, conductivityMsPerM: 28, relativePermeability: 1, frequencyHz: 500 }, 0.29739255578785162, 0.38233735836772055],
+      [{ placement: 'encircling', outerRadiusMm: 12.5, innerRadiusMm: 10, coilRadiusMm: 13, conductivityMsPerM: 5, relativePermeability: 50, frequencyHz: 2000 }, 2.5520451837349258, 2.7092642929671872],
+      [{ placement: 'internal', outerRadiusMm: 12.5, innerRadiusMm: 10, coilRadiusMm: 9, conductivityMsPerM: 28, relativePermeability: 1, frequencyHz: 2000 }, 0.13411422860825415, 0.32814576268109309],
+      [{ placement: 'internal', outerRadiusMm: 9.525, innerRadiusMm: 8.285, coilRadiusMm: 7.75, conductivityMsPerM: 16.24, relativePermeability: 1, frequencyHz: 40_000 }, 0.055874125048427783, 0.19027736866774185],
+    ];
+    for (const [input, re, im] of cases) {
+      const z = solveLongCoil(input).impedanceNormalised;
+      expect(z.sub(new Complex(re, im)).abs() / Math.hypot(re, im)).toBeLessThan(1e-9);
+    }
+  });
+
   it('balances power and matches the Born sum for both placements, magnetic or not', () => {
     const cases: LongCoilInput[] = [
       { placement: 'encircling', outerRadiusMm: 12.5, innerRadiusMm: 8, coilRadiusMm: 13, conductivityMsPerM: sigma, relativePermeability: 1, frequencyHz: 500 },
@@ -224,5 +256,16 @@ describe('tube limit frequency from the tube model', () => {
     const nearlySolid = tubeLimitFrequencyHz(10, 0.01, sigma, 1);
     expect(nearlySolid / limitFrequencyHz(20, iacs)).toBeGreaterThan(3.1);
     expect(nearlySolid / limitFrequencyHz(20, iacs)).toBeLessThan(3.5);
+  });
+});
+
+describe('out-of-range input', () => {
+  it('gives NaN, never an exception (an internal coil without a bore, a wall as thick as the radius, no frequency)', () => {
+    const base: LongCoilInput = { placement: 'internal', outerRadiusMm: 10, coilRadiusMm: 4, conductivityMsPerM: 10, relativePermeability: 1, frequencyHz: 1000 };
+    for (const input of [base, { ...base, innerRadiusMm: 10 }, { ...base, innerRadiusMm: 5, frequencyHz: 0 }]) {
+      const solution = solveLongCoil(input);
+      expect(Number.isNaN(solution.impedanceNormalised.re)).toBe(true);
+      expect(Number.isNaN(solution.densityRatioAtDepth(1))).toBe(true);
+    }
   });
 });
