@@ -4,7 +4,7 @@
 // coils the long-coil model of a bar or tube. The plane wave e^(−x/δ) rides along for
 // comparison. Solutions are cached by (coil, layers, frequency) in the models themselves.
 import type Complex from 'complex.js';
-import { conductivityMsPerMFromIacs, standardDepthMm } from '../physics';
+import { conductivityMsPerMFromIacs, MU0_H_PER_M, standardDepthMm } from '../physics';
 import { coilGeometry } from '../fields/geometry';
 import { lineAngleDeg, solvePlanar } from '../fields/planar';
 import { solveLongCoil } from '../fields/cylinder';
@@ -151,7 +151,6 @@ export function highestReachingFrequencyHz(
   densityRatioMin: number,
   flaw?: Pick<Flaw, 'depthMm' | 'metalAboveMm'>,
 ): number | null {
-  const { material } = setting.technique;
   const metalMm = flaw?.metalAboveMm ?? depthMm;
   // δ = 10·x: within a few per cent of the static field's reach; δ = x/20: far beyond reach.
   const lowHz = frequencyForDelta(setting, 10 * Math.max(metalMm, 0.01));
@@ -166,7 +165,6 @@ export function highestReachingFrequencyHz(
     if (ratioAt(Math.exp(mid)) >= densityRatioMin) lo = mid;
     else hi = mid;
   }
-  void material;
   return Math.exp(lo);
 }
 
@@ -174,7 +172,7 @@ function frequencyForDelta(setting: FieldSetting, deltaMm: number): number {
   const { material } = setting.technique;
   const sigma = conductivityMsPerMFromIacs(material.conductivityIacs) * 1e6;
   const deltaM = deltaMm / 1000;
-  return 1 / (Math.PI * 4e-7 * Math.PI * setting.relativePermeability * sigma * deltaM * deltaM);
+  return 1 / (Math.PI * MU0_H_PER_M * setting.relativePermeability * sigma * deltaM * deltaM);
 }
 
 export interface BestSeparation {
@@ -257,6 +255,34 @@ export interface CoilFields {
   flawResponseWithLiftOff(coilIndex: number, frequencyIndex: number, flawIndex: number, liftOffMm: number): Complex | null;
 }
 
+// Frequency searches outlive one evaluation: the editor re-evaluates the same coil and flaw on
+// every keystroke elsewhere in the technique. Keyed by everything the search reads.
+const searchCache = new Map<string, unknown>();
+const SEARCH_CACHE_LIMIT = 2000;
+
+function searchKey(technique: Technique, relativePermeability: number, coilIndex: number, flawIndex: number): string {
+  const { part, material } = technique;
+  const coil = technique.coils[coilIndex];
+  const flaw = technique.flaws[flawIndex];
+  return [
+    material.conductivityIacs,
+    relativePermeability,
+    part.form,
+    part.thicknessMm,
+    part.diameterMm,
+    part.wallMm,
+    part.coatingMm,
+    coil.type,
+    coil.diameterMm,
+    coil.innerDiameterMm,
+    coil.lengthMm,
+    coil.liftOffMm,
+    flaw.location,
+    flaw.depthMm,
+    flaw.metalAboveMm,
+  ].join('|');
+}
+
 export function createCoilFields(technique: Technique, relativePermeability: number): CoilFields {
   const setting: FieldSetting = { technique, relativePermeability };
   const memo = new Map<string, unknown>();
@@ -264,6 +290,13 @@ export function createCoilFields(technique: Technique, relativePermeability: num
     if (memo.has(key)) return memo.get(key) as T;
     const value = make();
     memo.set(key, value);
+    return value;
+  };
+  const lasting = <T>(key: string, make: () => T): T => {
+    if (searchCache.has(key)) return searchCache.get(key) as T;
+    const value = make();
+    if (searchCache.size >= SEARCH_CACHE_LIMIT) searchCache.clear();
+    searchCache.set(key, value);
     return value;
   };
   return {
@@ -274,12 +307,12 @@ export function createCoilFields(technique: Technique, relativePermeability: num
         return coilFieldAtDepth(setting, technique.coils[c], technique.coils[c].frequenciesHz[i], modelDepthMm(flaw), { flaw: flawLayers(flaw) });
       }),
     highestReachingHz: (c, f, min) =>
-      once(`reach|${c}|${f}|${min}`, () => {
+      lasting(`reach|${min}|${searchKey(technique, relativePermeability, c, f)}`, () => {
         const flaw = technique.flaws[f];
         return highestReachingFrequencyHz(setting, technique.coils[c], modelDepthMm(flaw), min, flawLayers(flaw));
       }),
     bestSeparation: (c, f, ceiling) =>
-      once(`best|${c}|${f}|${ceiling}`, () => {
+      lasting(`best|${ceiling}|${searchKey(technique, relativePermeability, c, f)}`, () => {
         const flaw = technique.flaws[f];
         return bestPhaseSeparation(setting, technique.coils[c], modelDepthMm(flaw), ceiling, flawLayers(flaw));
       }),

@@ -33,7 +33,11 @@
  *                 coil?: zero-based coil index, message, values, basis }
  *   verdict is 'does-not-conform' when any result fails; warnings never change it.
  *
- * Rule ids (RULE_IDS): orientation-coverage, center-effect, scan-index, penetration-depth, edge-effect,
+ *   coilFieldAtDepth({ technique, relativePermeability }, coil, frequencyHz, depthMm, { flaw? }) → { model, densityRatio,
+ *       planeWaveRatio, flawResponse, liftOffDirection, phaseSeparationDeg }: this coil's field at a depth (planar or long-coil
+ *       model); planarLayers(part, conductivityIacs, μr, flaw?) → the layers under a scanning coil. Chart series: shared/domain/fields.
+ *
+ * Rule ids (RULE_IDS): orientation-coverage, center-effect, scan-index, penetration-depth, phase-separation, lift-off, edge-effect,
  * fill-factor, limit-frequency, ferromagnetic, reference-standard, coil-size, personnel, equipment.
  * Every rule reports at least one result (not_applicable when it does not apply), except personnel
  * and equipment, which report nothing without register facts.
@@ -70,5 +74,7 @@ export {
 export type { RegisterFacts, RegisterFactsInput, CertificationFact, PersonFact, EquipmentFact, EquipmentKind } from './registers';
 export { TechniqueSchema } from '../../schemas/technique';
 export type { Technique, TechniqueInput } from '../../schemas/technique';
+export { coilFieldAtDepth, planarLayers, createCoilFields, highestReachingFrequencyHz, bestPhaseSeparation } from './coil-field';
+export type { CoilFieldAtDepth, CoilFields, FieldSetting, FieldModel } from './coil-field';
 export { DEFAULT_POLICY, POLICY_SETTINGS, PolicySchema, PolicyOverrideSchema, mergePolicy } from '../policy';
 export type { Policy, PolicyKey, PolicySetting, PolicyOverride } from '../policy';

@@ -125,7 +125,10 @@ function buildGrid(geometry: CoilGeometry, radialReachMm: number): CoilGrid {
       airInductanceIntegral += weight[k] * radial * radial * h;
     }
   }
-  const fieldEnd = z1 > 0 ? DECAY_END / z1 : Infinity;
+  // Fields and impedance stop where e^(−α·lift-off) has died away or, for a winding of finite
+  // cross-section, where its spectrum (∝ α^(−2.5)) leaves a tail below ~1e-5 of the total.
+  let fieldEnd = z1 > 0 ? DECAY_END / z1 : Infinity;
+  if (thinnest > 0) fieldEnd = Math.min(fieldEnd, 300 / r2 + 60 / thinnest);
   let fieldNodes = 0;
   while (fieldNodes < count && alpha[fieldNodes] <= fieldEnd) fieldNodes++;
   return { geometry, meanRadiusMm, radialReachMm: rMax, alpha, weight, source, liftOffFactor, besselAtMeanRadius, airInductanceIntegral, fieldNodes };

@@ -22,7 +22,8 @@ describe('physics properties', () => {
   });
 });
 
-describe('engine properties', () => {
+// Each generated technique meets the coil field models cold (new geometry, new layers): allow for it.
+describe('engine properties', { timeout: 600_000 }, () => {
   it('accepts every generated technique and evaluates it without throwing, with a consistent verdict', () => {
     fc.assert(
       fc.property(validTechniqueArbitrary, (input) => {

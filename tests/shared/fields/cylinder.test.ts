@@ -165,6 +165,22 @@ describe('tube in an encircling coil and with an internal coil', () => {
     expect(mu.sub(expected).abs()).toBeLessThan(0.01);
   });
 
+  it('matches an independent J/Y solution of the same boundary conditions in 40-digit arithmetic', () => {
+    // Computed once with mpmath 1.3.0 (besselj, bessely, lu_solve at mp.dps = 40). The same solve in double precision
+    // with scipy 1.17.1 jv/yv is 1e−4 off in the magnetic and the high-frequency cases (J and Y both grow like
+    // e^|Im z| and the wall's solution is their small difference), which is why the model works in scaled Hankel functions.
+    const cases: [LongCoilInput, number, number][] = [
+      [{ placement: 'encircling', outerRadiusMm: 12.5, innerRadiusMm: 8, coilRadiusMm: 13, conductivityMsPerM: 28, relativePermeability: 1, frequencyHz: 500 }, 0.29739255578785162, 0.38233735836772055],
+      [{ placement: 'encircling', outerRadiusMm: 12.5, innerRadiusMm: 10, coilRadiusMm: 13, conductivityMsPerM: 5, relativePermeability: 50, frequencyHz: 2000 }, 2.5520451837349258, 2.7092642929671872],
+      [{ placement: 'internal', outerRadiusMm: 12.5, innerRadiusMm: 10, coilRadiusMm: 9, conductivityMsPerM: 28, relativePermeability: 1, frequencyHz: 2000 }, 0.13411422860825415, 0.32814576268109309],
+      [{ placement: 'internal', outerRadiusMm: 9.525, innerRadiusMm: 8.285, coilRadiusMm: 7.75, conductivityMsPerM: 16.24, relativePermeability: 1, frequencyHz: 40_000 }, 0.055874125048427783, 0.19027736866774185],
+    ];
+    for (const [input, re, im] of cases) {
+      const z = solveLongCoil(input).impedanceNormalised;
+      expect(z.sub(new Complex(re, im)).abs() / Math.hypot(re, im)).toBeLessThan(1e-9);
+    }
+  });
+
   it('balances power and matches the Born sum for both placements, magnetic or not', () => {
     const cases: LongCoilInput[] = [
       { placement: 'encircling', outerRadiusMm: 12.5, innerRadiusMm: 8, coilRadiusMm: 13, conductivityMsPerM: sigma, relativePermeability: 1, frequencyHz: 500 },
