@@ -13,8 +13,8 @@ import type { Technique } from '../../schemas/technique';
 
 export interface DepthCurvePoint {
   depthMm: number;
-  /** |J| of this coil's field over |J| at the surface it faces (under the winding; at the radius in a bar or tube). */
-  coilRatio: number;
+  /** |J| of this coil's field over |J| at the surface it faces (under the winding; at the radius in a bar or tube); null past the metal's end. */
+  coilRatio: number | null;
   /** e^(−x/δ). */
   planeWaveRatio: number;
 }
@@ -38,7 +38,7 @@ function metalSpanMm(technique: Technique, coilIndex: number): number {
   return part.thicknessMm ?? Infinity;
 }
 
-/** Density against depth for every coil and test frequency, from 0 to `maxDepthMm` (or the metal's end). */
+/** Density against depth for every coil and test frequency at `points + 1` even steps from 0 to `maxDepthMm` (none past the metal's end). */
 export function depthCurves(setting: FieldSetting, maxDepthMm: number, points = 60): DepthCurve[] {
   const { technique, relativePermeability } = setting;
   const { material, part } = technique;
@@ -47,7 +47,7 @@ export function depthCurves(setting: FieldSetting, maxDepthMm: number, points = 
     const endMm = Math.min(maxDepthMm, metalSpanMm(technique, c));
     coil.frequenciesHz.forEach((frequencyHz, i) => {
       const deltaMm = standardDepthMm(frequencyHz, material.conductivityIacs, relativePermeability);
-      const depths = Array.from({ length: points + 1 }, (_, n) => (endMm * n) / points);
+      const depths = Array.from({ length: points + 1 }, (_, n) => (maxDepthMm * n) / points);
       let model: FieldModel = 'planar';
       let ratioAt: (depthMm: number) => number;
       const longInput = isLongCoil(coil) ? longCoilInput(coil, part, setting, frequencyHz) : null;
@@ -67,7 +67,7 @@ export function depthCurves(setting: FieldSetting, maxDepthMm: number, points = 
         frequencyHz,
         deltaMm,
         model,
-        points: depths.map((depthMm) => ({ depthMm, coilRatio: ratioAt(depthMm), planeWaveRatio: Math.exp(-depthMm / deltaMm) })),
+        points: depths.map((depthMm) => ({ depthMm, coilRatio: depthMm <= endMm ? ratioAt(depthMm) : null, planeWaveRatio: Math.exp(-depthMm / deltaMm) })),
       });
     });
   });

@@ -26,7 +26,7 @@ describe('chart data from the coil field models', () => {
     const technique = plate(400, [20_000]);
     const deltaMm = standardDepthMm(20_000, 32);
     const [curve] = depthCurves({ technique, relativePermeability: 1 }, 3 * deltaMm, 12);
-    for (const point of curve.points) expect(point.coilRatio).toBeCloseTo(Math.exp(-point.depthMm / deltaMm), 2);
+    for (const point of curve.points) expect(point.coilRatio!).toBeCloseTo(Math.exp(-point.depthMm / deltaMm), 2);
   });
 
   it('when the coil is small against δ, then its density falls faster with depth than the plane wave (the finite coil’s field spreads: Dodd & Deeds 1968)', () => {
@@ -34,7 +34,15 @@ describe('chart data from the coil field models', () => {
     const [curve] = depthCurves({ technique, relativePermeability: 1 }, 5, 10);
     const at5 = curve.points.at(-1)!;
     expect(at5.depthMm).toBeCloseTo(5, 9);
-    expect(at5.coilRatio).toBeLessThan(at5.planeWaveRatio / 10);
+    expect(at5.coilRatio!).toBeLessThan(at5.planeWaveRatio / 10);
+  });
+
+  it('when the chart reaches past a plate’s far side, then the coil’s curve stops there while the plane wave goes on', () => {
+    const technique = plate(400, [20_000]);
+    const [curve] = depthCurves({ technique, relativePermeability: 1 }, 80, 8);
+    expect(curve.points.filter((point) => point.depthMm <= 40).every((point) => point.coilRatio !== null)).toBe(true);
+    expect(curve.points.filter((point) => point.depthMm > 40).every((point) => point.coilRatio === null)).toBe(true);
+    expect(curve.points.every((point) => point.planeWaveRatio > 0)).toBe(true);
   });
 
   it('when the frequency falls far below the test frequency, then the locus ends near the coil in air at (0, 1): ΔZ → 0 as f → 0', () => {

@@ -67,9 +67,9 @@ export function DepthPlot({ technique: liveTechnique, values: liveValues, penetr
       const row: Record<string, number> = { x };
       for (const s of list) {
         row[`${s.key}_plane`] = 100 * Math.exp(-x / s.deltaMm);
-        const point = coilAt.get(s.key)?.points[index];
         // Past the metal's end (a plate's far side, a bar's axis) the coil's curve stops.
-        if (point && point.depthMm >= x - 1e-9) row[s.key] = 100 * point.coilRatio;
+        const ratio = coilAt.get(s.key)?.points[index]?.coilRatio;
+        if (ratio !== null && ratio !== undefined) row[s.key] = 100 * ratio;
       }
       return row;
     });

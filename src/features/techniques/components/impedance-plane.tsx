@@ -120,9 +120,9 @@ export function ImpedancePlaneDiagram({ technique: liveTechnique, values: liveVa
                 <caption className="sr-only">{title}: angle between lift-off and each flaw</caption>
                 <thead className="text-ink-soft">
                   <tr>
-                    <th scope="col" className="py-1 font-bold">Frequency</th>
-                    <th scope="col" className="py-1 font-bold">Flaw</th>
-                    <th scope="col" className="py-1 font-bold">Angle from lift-off</th>
+                    <th scope="col" className="py-1 pr-3 font-bold">Frequency</th>
+                    <th scope="col" className="py-1 pr-3 font-bold">Flaw</th>
+                    <th scope="col" className="py-1 pr-3 font-bold">Angle from lift-off</th>
                   </tr>
                 </thead>
                 <tbody>
@@ -130,7 +130,7 @@ export function ImpedancePlaneDiagram({ technique: liveTechnique, values: liveVa
                     point.flaws.length === 0
                       ? [
                           <tr key={point.frequencyHz} className="border-t border-ink/5">
-                            <td className="py-0.5">{formatHz(point.frequencyHz)}</td>
+                            <td className="py-0.5 pr-3">{formatHz(point.frequencyHz)}</td>
                             <td colSpan={2} className="text-ink-soft">No expected flaw lies below the surface.</td>
                           </tr>,
                         ]
@@ -139,8 +139,8 @@ export function ImpedancePlaneDiagram({ technique: liveTechnique, values: liveVa
                           const low = separationMinDeg !== undefined && !silent && flaw.separationDeg < separationMinDeg;
                           return (
                             <tr key={`${point.frequencyHz}-${flaw.flawId}`} className="border-t border-ink/5">
-                              <td className="py-0.5">{formatHz(point.frequencyHz)}</td>
-                              <td>{flaw.flawId}</td>
+                              <td className="py-0.5 pr-3">{formatHz(point.frequencyHz)}</td>
+                              <td className="pr-3">{flaw.flawId}</td>
                               <td className={low ? 'font-bold text-fail' : ''}>
                                 {silent ? 'no signal: the field does not reach it' : `${formatNumber(flaw.separationDeg, 2)}°${low ? ' (below the organisation’s minimum)' : ''}`}
                               </td>
