@@ -66,6 +66,15 @@ describe('technique editor', () => {
     await page.screenshot({ path: screenshotPath('technique-editor'), fullPage: true });
     await page.getByRole('figure', { name: 'Current density against depth' }).screenshot({ path: screenshotPath('technique-editor-depth-plot') });
     await page.getByRole('figure', { name: 'Induced current against flaw orientation' }).screenshot({ path: screenshotPath('technique-editor-frame-diagram') });
+    // The coil's own field: the impedance plane and, on request, the density under the probe.
+    const plane = page.getByRole('figure', { name: 'Impedance plane' });
+    await plane.getByRole('img', { name: /Coil 1: .* impedance plane/ }).waitFor();
+    expect(await plane.getByRole('row').count()).toBeGreaterThan(1);
+    await plane.screenshot({ path: screenshotPath('technique-editor-impedance-plane') });
+    const map = page.getByRole('figure', { name: 'Current density under the probe' });
+    await map.getByRole('button', { name: 'Draw the density map' }).click();
+    await map.getByRole('img', { name: /Current density under the coil at 20 kHz/ }).waitFor({ timeout: 30_000 });
+    await map.screenshot({ path: screenshotPath('technique-editor-density-map') });
 
     // An invalid file changes nothing and says what is wrong.
     await page.getByTestId('import-file').setInputFiles({

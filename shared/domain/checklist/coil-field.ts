@@ -65,7 +65,7 @@ export function planarLayers(part: Part, conductivityIacs: number, relativePerme
 }
 
 /** The long-coil problem of an encircling or bobbin coil on this part (null when the part lacks a diameter). */
-function longCoilInput(coil: Coil, part: Part, setting: FieldSetting, frequencyHz: number) {
+export function longCoilInput(coil: Coil, part: Part, setting: FieldSetting, frequencyHz: number) {
   const placement = coil.type === 'encircling' ? ('encircling' as const) : ('internal' as const);
   if (part.diameterMm === undefined) return null;
   const conductivityMsPerM = conductivityMsPerMFromIacs(setting.technique.material.conductivityIacs);

@@ -1,6 +1,7 @@
-// Current density against depth for each test frequency, J/J0 = e^(−x/δ), with
-// 1δ (36.8 %) and 3δ (5 %) marked and the expected flaws' depths drawn across.
-import { useMemo } from 'react';
+// Current density against depth for each test frequency: this coil's own field
+// (solid), with the plane wave J/J0 = e^(−x/δ) faint beside it, 1δ (36.8 %) and
+// 3δ (5 %) marked and the expected flaws' depths drawn across.
+import { useDeferredValue, useMemo } from 'react';
 import {
   CartesianGrid,
   Label,
@@ -16,11 +17,12 @@ import {
 } from 'recharts';
 import type { ChecklistValues } from '../../../../shared/domain/checklist';
 import type { Technique } from '../../../../shared/schemas/technique';
+import { depthCurves } from '../../../../shared/domain/fields/charts';
 import { formatHz, formatNumber } from './labels';
 
 const SERIES_COLOURS = ['#c0652c', '#1f6f78', '#6b4c9a', '#2f7d4f', '#a15c00', '#14343b'];
 const DASHES = ['', '6 3', '2 3', '8 3 2 3'];
-const POINTS = 80;
+const POINTS = 40;
 
 /** Depth the current must reach for a flaw: the crack tip for surface cracks, the metal above it otherwise. */
 function flawDepthMm(flaw: Technique['flaws'][number]): number {
@@ -35,7 +37,10 @@ interface Series {
   dash: string;
 }
 
-export function DepthPlot({ technique, values, penetrationFactor, animate = false }: { technique: Technique; values: ChecklistValues; penetrationFactor: number; animate?: boolean }) {
+export function DepthPlot({ technique: liveTechnique, values: liveValues, penetrationFactor, animate = false }: { technique: Technique; values: ChecklistValues; penetrationFactor: number; animate?: boolean }) {
+  // The field models take a moment: typing in the editor stays responsive, the plot follows.
+  const technique = useDeferredValue(liveTechnique);
+  const values = useDeferredValue(liveValues);
   const { series, data, maxDepthMm } = useMemo(() => {
     const list: Series[] = [];
     technique.coils.forEach((coil, c) =>
@@ -55,10 +60,17 @@ export function DepthPlot({ technique, values, penetrationFactor, animate = fals
     const deepestFlaw = Math.max(0, ...technique.flaws.map(flawDepthMm));
     const deepestReach = Math.max(0, ...list.map((s) => penetrationFactor * s.deltaMm), ...list.map((s) => 3 * s.deltaMm));
     const max = Math.max(deepestFlaw * 1.15, deepestReach * 1.05, 0.1);
+    const curves = depthCurves({ technique, relativePermeability: values.fieldRelativePermeability }, max, POINTS);
+    const coilAt = new Map(curves.map((curve) => [`s${curve.coilIndex}_${curve.frequencyIndex}`, curve]));
     const rows = Array.from({ length: POINTS + 1 }, (_, index) => {
       const x = (max * index) / POINTS;
       const row: Record<string, number> = { x };
-      for (const s of list) row[s.key] = 100 * Math.exp(-x / s.deltaMm);
+      for (const s of list) {
+        row[`${s.key}_plane`] = 100 * Math.exp(-x / s.deltaMm);
+        // Past the metal's end (a plate's far side, a bar's axis) the coil's curve stops.
+        const ratio = coilAt.get(s.key)?.points[index]?.coilRatio;
+        if (ratio !== null && ratio !== undefined) row[s.key] = 100 * ratio;
+      }
       return row;
     });
     return { series: list, data: rows, maxDepthMm: max };
@@ -78,8 +90,10 @@ export function DepthPlot({ technique, values, penetrationFactor, animate = fals
         Current density against depth
       </figcaption>
       <p className="text-xs text-ink-soft">
-        J/J₀ = e<sup>−x/δ</sup> for each test frequency: 36.8 % at 1δ, 5 % at 3δ. Vertical lines mark the depth each expected flaw needs the field
-        to reach (crack tip for surface cracks; metal above the flaw otherwise).
+        Solid lines: the current density this coil induces, relative to the surface it faces (under the winding for a probe; through the wall or
+        towards the axis for an encircling or internal coil), from the coil's own field. Faint dashed lines: the plane wave J/J₀ = e<sup>−x/δ</sup>,
+        the familiar figure (36.8 % at 1δ, 5 % at 3δ), which a small probe does not reach. Vertical lines mark the depth each expected flaw needs the
+        field to reach (crack tip for surface cracks; metal above the flaw otherwise).
       </p>
       <div className="mt-2 h-80 w-full" data-testid="depth-plot">
         <ResponsiveContainer width="100%" height="100%">
@@ -111,12 +125,28 @@ export function DepthPlot({ technique, values, penetrationFactor, animate = fals
               <Line
                 key={s.key}
                 dataKey={s.key}
-                name={s.name}
+                name={`${s.name}: this coil`}
                 type="monotone"
                 dot={false}
                 stroke={s.colour}
                 strokeDasharray={s.dash}
                 strokeWidth={2}
+                connectNulls={false}
+                isAnimationActive={animate}
+              />
+            ))}
+            {series.map((s) => (
+              <Line
+                key={`${s.key}_plane`}
+                dataKey={`${s.key}_plane`}
+                name={`${s.name}: plane wave`}
+                legendType="none"
+                type="monotone"
+                dot={false}
+                stroke={s.colour}
+                strokeOpacity={0.35}
+                strokeDasharray="3 4"
+                strokeWidth={1.5}
                 isAnimationActive={animate}
               />
             ))}
