@@ -8,11 +8,10 @@
  *         densityAt(rMm, depthMm) (A/m² per ampere-turn), densityUnderWindingRelative(depthMm) (complex),
  *         densityRatioUnderWinding(depthMm), flawResponseAtDepth(depthMm) }
  *   coilGeometry(coil, part) → CoilGeometry   (the technique's coil, defaults from diameterMm)
- * For screens (React components call these directly; all cached):
- *   planarDensityProfile(coil, layers, f, maxDepthMm, points?) → [{ depthMm, densityRatio, phaseDeg }]   density against depth
- *   planarImpedanceLocus(coil, layers, frequenciesHz) → [{ frequencyHz, impedanceNormalised, liftOffDirection }]
- *   planarFlawDirections(coil, layers, f, depthsMm) → [{ depthMm, flawResponse, phaseSeparationDeg }]
- *   planarDensityMap(coil, layers, f, { maxRadiusMm, maxDepthMm, columns?, rows? }) → { radiiMm, depthsMm, densityRatio[row][col] }
+ * For screens (React components call these, deferred; the solutions they use are cached):
+ *   depthCurves({ technique, relativePermeability }, maxDepthMm, points?) → per coil and frequency, this coil's density and the plane wave against depth
+ *   impedancePlane(setting, coilIndex) → { locus over frequency, test points with the lift-off and each flaw's direction and their angle }
+ *   densityMap(setting, coilIndex, frequencyIndex) → |J| in the r–z plane under a probe (null for a long coil)
  * For a technique, checklist/coil-field.ts builds the layers (planarLayers) and answers per coil,
  * frequency and flaw (coilFieldAtDepth).
  */
@@ -20,8 +19,9 @@ export type { CoilGeometry, PlanarLayer } from './types';
 export { solvePlanar, airCoilInductanceH, lineAngleDeg, planarProblem } from './planar';
 export type { PlanarSolution, PlanarOptions } from './planar';
 export { coilGeometry, bareMetalGeometry, DEFAULT_INNER_TO_OUTER, DEFAULT_LENGTH_TO_DIAMETER, DEFAULT_PROBE_LIFT_OFF_MM } from './geometry';
-export { planarDensityProfile, planarImpedanceLocus, planarFlawDirections, planarDensityMap } from './planar-charts';
-export type { PlanarDensityPoint, PlanarLocusPoint, FlawDirection } from './planar-charts';
+// What the technique screens draw (density against depth, the impedance plane, the r–z density map), for every coil type.
+export { depthCurves, impedancePlane, densityMap } from './charts';
+export type { DepthCurve, DepthCurvePoint, ImpedancePlane, PlanePoint, FlawDirection, DensityMap } from './charts';
 export { gaussLegendreRule, integrateAdaptive, integrateAdaptiveComplex, integrateToInfinity } from './quadrature';
 // Long coils (encircling, bobbin):
 export { solveLongCoil, densityProfile, impedanceLocus } from './cylinder';
