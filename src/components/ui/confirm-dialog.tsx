@@ -33,8 +33,8 @@ export function ConfirmDialog({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button variant={danger ? 'danger' : 'primary'} onClick={onConfirm} disabled={pending}>
-          {pending ? 'Working…' : confirmLabel}
+        <Button variant={danger ? 'danger' : 'primary'} onClick={onConfirm} busy={pending}>
+          {confirmLabel}
         </Button>
       </div>
     </Dialog>

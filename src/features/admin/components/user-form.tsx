@@ -103,8 +103,8 @@ export function UserForm({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : user ? 'Save changes' : 'Create user'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {user ? 'Save changes' : 'Create user'}
         </Button>
       </div>
     </form>

@@ -216,9 +216,11 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
             </Button>
             <Button
               onClick={() => file && importer.mutate(file, { onSuccess: () => setStep('done') })}
-              disabled={importer.isPending || Boolean(importErrors)}
+              busy={importer.isPending}
+              busyLabel="Importing…"
+              disabled={Boolean(importErrors)}
             >
-              {importer.isPending ? 'Importing…' : `Import ${plural(rowCount, 'inspection')}`}
+              {`Import ${plural(rowCount, 'inspection')}`}
             </Button>
           </div>
         </div>

@@ -132,8 +132,8 @@ export function CertificationForm({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : certification ? 'Save changes' : 'Record certificate'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {certification ? 'Save changes' : 'Record certificate'}
         </Button>
       </div>
     </form>

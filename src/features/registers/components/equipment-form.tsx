@@ -227,8 +227,8 @@ export function EquipmentForm({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : item ? 'Save changes' : 'Register equipment'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {item ? 'Save changes' : 'Register equipment'}
         </Button>
       </div>
     </form>

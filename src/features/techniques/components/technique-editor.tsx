@@ -220,8 +220,8 @@ export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving,
           <Button variant="secondary" onClick={exportFile}>
             Export JSON
           </Button>
-          <Button type="submit" disabled={saving}>
-            {saving ? 'Saving…' : mode === 'create' ? 'Create draft' : dirty ? 'Save draft' : 'Saved'}
+          <Button type="submit" busy={saving} busyLabel="Saving…">
+            {mode === 'create' ? 'Create draft' : dirty ? 'Save draft' : 'Saved'}
           </Button>
           {renderActions?.({ dirty })}
         </div>

@@ -1,6 +1,7 @@
 // Queries and mutations of the workflow records. Every mutation returns the
 // record as the server now sees it and invalidates the lists it may change.
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api } from '../../../lib/api-client';
 import type { ListResponse } from '../../../../shared/schemas/common';
 import type {

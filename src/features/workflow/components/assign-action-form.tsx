@@ -29,7 +29,7 @@ export function AssignActionForm({ findingId, authorId, suggestedDueDate, onDone
       {assign.error ? <ErrorNotice error={assign.error} title="The action was not assigned" /> : null}
       <div className="flex justify-end gap-2">
         <Button variant="secondary" onClick={onDone}>Cancel</Button>
-        <Button type="submit" disabled={assign.isPending}>{assign.isPending ? 'Assigning…' : 'Assign the corrective action'}</Button>
+        <Button type="submit" busy={assign.isPending} busyLabel="Assigning…">Assign the corrective action</Button>
       </div>
     </form>
   );

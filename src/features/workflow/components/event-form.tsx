@@ -187,8 +187,8 @@ export function EventForm({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Working…' : meaning ? `Sign: ${eventLabel(type)}` : eventLabel(type)}
+        <Button type="submit" busy={pending} busyLabel="Working…">
+          {meaning ? `Sign: ${eventLabel(type)}` : eventLabel(type)}
         </Button>
       </div>
     </form>

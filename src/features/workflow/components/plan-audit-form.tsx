@@ -55,7 +55,7 @@ export function PlanAuditForm({ leadAuditorId, leadAreaId, onCancel }: { leadAud
       {create.error ? <ErrorNotice error={create.error} title="The audit was not planned" /> : null}
       <div className="flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        <Button type="submit" disabled={create.isPending || !scope.length}>{create.isPending ? 'Planning…' : 'Plan the audit'}</Button>
+        <Button type="submit" busy={create.isPending} busyLabel="Planning…" disabled={!scope.length}>Plan the audit</Button>
       </div>
     </form>
   );

@@ -33,7 +33,7 @@ export function RaiseFindingForm({ auditId, techniqueCodes, onCancel }: { auditI
       {raise.error ? <ErrorNotice error={raise.error} title="The finding was not raised" /> : null}
       <div className="flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        <Button type="submit" disabled={raise.isPending}>{raise.isPending ? 'Raising…' : 'Raise the finding'}</Button>
+        <Button type="submit" busy={raise.isPending} busyLabel="Raising…">Raise the finding</Button>
       </div>
     </form>
   );
