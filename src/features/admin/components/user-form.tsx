@@ -4,7 +4,8 @@ import type { UserView } from '../../../../shared/schemas/user';
 import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { formErrors } from '../../../lib/field-errors';
 import { useAreas } from '../api/users';
 
 export interface UserFormValues {
@@ -15,6 +16,8 @@ export interface UserFormValues {
   areaId: number | null;
   mailDigest: boolean;
 }
+
+const USER_FIELDS = { email: 'E-mail address', displayName: 'Name', password: 'Password', roles: 'Roles', areaId: 'Area' };
 
 export function UserForm({
   user,
@@ -39,7 +42,7 @@ export function UserForm({
     mailDigest: user?.mailDigest ?? false,
   });
   const apiError = error instanceof ApiError ? error : null;
-  const fieldError = (path: string) => apiError?.fieldErrors.find((detail) => detail.path.startsWith(path))?.message;
+  const fieldError = formErrors(apiError, USER_FIELDS).at;
   const set = <K extends keyof UserFormValues>(key: K, value: UserFormValues[K]) => setValues((current) => ({ ...current, [key]: value }));
 
   const submit = (event: FormEvent) => {
@@ -98,7 +101,7 @@ export function UserForm({
           Send reminders as one daily digest
         </label>
       )}
-      {apiError && apiError.fieldErrors.length === 0 && <ErrorNotice error={apiError} title="Not saved" />}
+      {apiError && <FormErrorNotice error={apiError} fields={USER_FIELDS} />}
       <div className="mt-2 flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>
           Cancel

@@ -26,12 +26,24 @@ const CLASS_LABELS: Record<string, string> = { major: 'Major', minor: 'Minor', o
 const classLabel = (value: string) => CLASS_LABELS[value] ?? value;
 
 type Query = Record<string, string | number | undefined>;
+type ActionTimeliness = 'on_time' | 'late' | 'overdue' | 'not_yet_due';
 
 function listUrl(path: string, query: Query): string {
   const params = new URLSearchParams();
   for (const [key, value] of Object.entries(query)) if (value !== undefined && value !== '') params.set(key, String(value));
   const text = params.toString();
   return text ? `${path}?${text}` : path;
+}
+
+/** A count in a chart's table, linked to the list behind it (0 stays plain text). */
+function countLink(count: number, to: string, className = 'text-lagoon underline') {
+  return count ? (
+    <Link className={className} to={to}>
+      {count}
+    </Link>
+  ) : (
+    0
+  );
 }
 
 export function DashboardCharts({ data, animate = true }: { data: DashboardView; animate?: boolean }) {
@@ -45,11 +57,24 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
     for (const band of AGE_BANDS) row[band] = data.openFindingsByClassAge.find((r) => r.class === cls && r.band === band)?.count ?? 0;
     return row;
   });
-  // Findings without a class are raised or in review: the list of open findings, unfiltered by class.
-  const openFindingsUrl = (cls: string) => listUrl('/findings', { state: OPEN_FINDING_STATES, class: cls === 'unclassified' ? undefined : cls, areaId });
+  // Each drill-down filters exactly as its bar counts (dashboard.service.ts): findings raised in the range, open, of that class
+  // ("unclassified" is the list's own filter for findings without a class).
+  const raised = { raisedFrom: data.range.from, raisedTo: data.range.to };
+  const openFindingsUrl = (cls: string) => listUrl('/findings', { state: OPEN_FINDING_STATES, class: cls, ...raised, areaId });
 
-  // ---- actions by month
-  const actionsUrl = (overdue: boolean) => listUrl('/actions', { overdue: overdue ? 'true' : undefined, areaId });
+  // ---- actions by month: due in that month (within the range), of one of the four kinds
+  const actionsUrl = (month: string, timeliness: ActionTimeliness) => {
+    const [year, monthIndex] = month.split('-').map(Number);
+    const first = `${month}-01`;
+    const last = new Date(Date.UTC(year, monthIndex, 0)).toISOString().slice(0, 10);
+    return listUrl('/actions', {
+      dueFrom: first < data.range.from ? data.range.from : first,
+      dueTo: last > data.range.to ? data.range.to : last,
+      timeliness,
+      areaId,
+    });
+  };
+  const monthOf = (entry: unknown) => String((entry as { payload?: { month?: string } }).payload?.month);
 
   return (
     <div className="grid gap-4 lg:grid-cols-2">
@@ -111,10 +136,10 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
               <YAxis allowDecimals={false} />
               <Tooltip />
               <Legend />
-              <Bar dataKey="closedOnTime" name="Closed on time" stackId="a" fill={COLOURS.pass} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(false))} />
-              <Bar dataKey="closedLate" name="Closed late" stackId="a" fill={COLOURS.warn} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(false))} />
-              <Bar dataKey="overdue" name="Overdue" stackId="a" fill={COLOURS.fail} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(true))} />
-              <Bar dataKey="openNotDue" name="Open, not yet due" stackId="a" fill={COLOURS.soft} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(false))} />
+              <Bar dataKey="closedOnTime" name="Closed on time" stackId="a" fill={COLOURS.pass} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'on_time'))} />
+              <Bar dataKey="closedLate" name="Closed late" stackId="a" fill={COLOURS.warn} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'late'))} />
+              <Bar dataKey="overdue" name="Overdue" stackId="a" fill={COLOURS.fail} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'overdue'))} />
+              <Bar dataKey="openNotDue" name="Open, not yet due" stackId="a" fill={COLOURS.soft} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'not_yet_due'))} />
             </BarChart>
           </ResponsiveContainer>
         }
@@ -127,16 +152,10 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
               cells: [
                 row.month,
                 row.due,
-                row.closedOnTime,
-                row.closedLate,
-                row.overdue ? (
-                  <Link className="font-bold text-fail underline" to={actionsUrl(true)}>
-                    {row.overdue}
-                  </Link>
-                ) : (
-                  0
-                ),
-                row.openNotDue,
+                countLink(row.closedOnTime, actionsUrl(row.month, 'on_time')),
+                countLink(row.closedLate, actionsUrl(row.month, 'late')),
+                countLink(row.overdue, actionsUrl(row.month, 'overdue'), 'font-bold text-fail underline'),
+                countLink(row.openNotDue, actionsUrl(row.month, 'not_yet_due')),
               ],
             }))}
           />
@@ -254,7 +273,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
                   fill={fill}
                   isAnimationActive={animate}
                   cursor="pointer"
-                  onClick={(entry) => navigate(listUrl('/findings', { state: stateParam(state), areaId: (entry as { payload?: { areaId?: number } }).payload?.areaId }))}
+                  onClick={(entry) => navigate(listUrl('/findings', { state: stateParam(state), ...raised, areaId: (entry as { payload?: { areaId?: number } }).payload?.areaId }))}
                 />
               ))}
             </BarChart>
@@ -267,12 +286,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
             rows={data.findingsByArea.map((row) => ({
               key: String(row.areaId),
               cells: [
-                <Link className="text-lagoon underline" to={listUrl('/findings', { areaId: row.areaId })}>
+                <Link className="text-lagoon underline" to={listUrl('/findings', { ...raised, areaId: row.areaId })}>
                   {row.areaName}
                 </Link>,
-                row.open,
-                row.closed,
-                row.withdrawn,
+                countLink(row.open, listUrl('/findings', { state: OPEN_FINDING_STATES, ...raised, areaId: row.areaId })),
+                countLink(row.closed, listUrl('/findings', { state: 'closed', ...raised, areaId: row.areaId })),
+                countLink(row.withdrawn, listUrl('/findings', { state: 'withdrawn', ...raised, areaId: row.areaId })),
               ],
             }))}
           />
