@@ -35,6 +35,9 @@ function listUrl(path: string, query: Query): string {
   return text ? `${path}?${text}` : path;
 }
 
+/** Legend labels in the text colour: the series colours are for the swatches, too light for text. */
+const legendText = (value: string) => <span style={{ color: COLOURS.ink }}>{value}</span>;
+
 /** A count in a chart's table, linked to the list behind it (0 stays plain text). */
 function countLink(count: number, to: string, className = 'text-lagoon underline') {
   return count ? (
@@ -85,12 +88,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={ageRows.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={ageRows} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={ageRows} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="label" />
               <YAxis allowDecimals={false} />
               <Tooltip />
-              <Legend />
+              <Legend formatter={legendText} />
               {AGE_BANDS.map((band, index) => (
                 <Bar
                   key={band}
@@ -130,12 +133,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.actionsByMonth.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={data.actionsByMonth} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={data.actionsByMonth} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="month" />
               <YAxis allowDecimals={false} />
               <Tooltip />
-              <Legend />
+              <Legend formatter={legendText} />
               <Bar dataKey="closedOnTime" name="Closed on time" stackId="a" fill={COLOURS.pass} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'on_time'))} />
               <Bar dataKey="closedLate" name="Closed late" stackId="a" fill={COLOURS.warn} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'late'))} />
               <Bar dataKey="overdue" name="Overdue" stackId="a" fill={COLOURS.fail} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'overdue'))} />
@@ -169,7 +172,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.meanDaysToClose.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={data.meanDaysToClose.map((row) => ({ ...row, label: classLabel(row.class) }))} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={data.meanDaysToClose.map((row) => ({ ...row, label: classLabel(row.class) }))} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="label" />
               <YAxis />
@@ -210,7 +213,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.failingRules.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart layout="vertical" data={data.failingRules} margin={{ top: 8, right: 8, bottom: 8, left: 24 }}>
+            <BarChart accessibilityLayer={false} layout="vertical" data={data.failingRules} margin={{ top: 8, right: 8, bottom: 8, left: 24 }}>
               <CartesianGrid strokeDasharray="3 3" horizontal={false} />
               <XAxis type="number" allowDecimals={false} />
               <YAxis type="category" dataKey="rule" width={140} />
@@ -252,12 +255,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.findingsByArea.every((row) => row.open + row.closed + row.withdrawn === 0)}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={data.findingsByArea} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={data.findingsByArea} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="areaName" />
               <YAxis allowDecimals={false} />
               <Tooltip />
-              <Legend />
+              <Legend formatter={legendText} />
               {(
                 [
                   ['open', 'Open', COLOURS.copper, 'open'],
