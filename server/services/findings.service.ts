@@ -225,5 +225,6 @@ export async function getFinding(deps: AppDeps, ability: AppAbility, id: number)
     signatures,
     canAssignAction: mayAssignAction(ability, finding),
     allowedEvents: allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, facts.get(id)!, ability),
+    undecidedInspectionCount: facts.get(id)!.undecidedInspectionCount,
   });
 }

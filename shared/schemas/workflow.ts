@@ -292,6 +292,8 @@ export interface FindingView extends RecordBase {
 
 export interface FindingDetailView extends FindingView {
   signatures: SignatureView[];
+  /** Past inspections in the impact worksheet without a containment decision (counted only in containment, else 0). */
+  undecidedInspectionCount: number;
 }
 
 export interface ActionView extends RecordBase {

@@ -41,13 +41,24 @@ export const COIL_TYPE_LABELS: Record<CoilType, string> = {
 };
 
 export const ORIENTATION_LABELS: Record<FlawOrientation, string> = {
-  axial: 'Axial',
-  circumferential: 'Circumferential',
+  axial: 'Axial (along a bar or tube)',
+  circumferential: 'Circumferential (around a bar or tube)',
   radial: 'Radial',
   laminar: 'Laminar (parallel to the surface)',
-  longitudinal: 'Longitudinal',
-  transverse: 'Transverse',
+  longitudinal: 'Longitudinal (along a plate’s main direction)',
+  transverse: 'Transverse (across a plate’s main direction)',
 };
+
+/** The orientation alone, without the explanation the editor's select gives: "Axial". */
+export const orientationWord = (orientation: FlawOrientation) => ORIENTATION_LABELS[orientation].replace(/ \(.*\)$/, '');
+
+/**
+ * Why the list holds two names for each direction: the trade says axial and
+ * circumferential of bars and tubes, longitudinal and transverse of plates and
+ * sheet; the physics is the same (a crack is found where the eddy currents cross it).
+ */
+export const ORIENTATION_HELP =
+  'Axial and circumferential are said of bars and tubes, longitudinal and transverse of plates and sheet: an axial crack and a longitudinal crack lie along the part in the same way, and the checks treat them alike. Choose the words of your part’s form.';
 
 export const LOCATION_LABELS: Record<FlawLocation, string> = {
   surface: 'Open to the inspected surface',
