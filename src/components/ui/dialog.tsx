@@ -3,16 +3,20 @@ import { useBlocker } from 'react-router-dom';
 import { Button } from './button';
 
 /**
+ * Navigation state of a dialog that moves on to what it created once its
+ * request succeeded: `navigate(url, { state: SENT_FROM_DIALOG })` passes the leave guard.
+ */
+export const SENT_FROM_DIALOG = { sentFromDialog: true } as const;
+
+/**
  * A modal on the native <dialog>: focus stays inside, Escape closes it. Once
  * something has been typed in it, leaving the page (browser Back, a link)
- * asks first, as the technique editor does; sending the form lets the page
- * move on (to the record it created, say).
+ * asks first, as the technique editor does.
  */
 export function Dialog({ open, title, onClose, children }: { open: boolean; title: string; onClose(): void; children: ReactNode }) {
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
   const [typed, setTyped] = useState(false);
-  const submitted = useRef(false);
   useEffect(() => {
     const dialog = ref.current;
     if (!dialog) return;
@@ -24,13 +28,7 @@ export function Dialog({ open, title, onClose, children }: { open: boolean; titl
     <dialog
       ref={ref}
       onClose={onClose}
-      onInput={() => {
-        submitted.current = false;
-        setTyped(true);
-      }}
-      onSubmit={() => {
-        submitted.current = true;
-      }}
+      onInput={() => setTyped(true)}
       aria-labelledby={titleId}
       className="m-auto w-full max-w-lg rounded-xl border border-ink/10 bg-paper p-0 text-ink shadow-2xl backdrop:bg-ink/50"
     >
@@ -40,7 +38,7 @@ export function Dialog({ open, title, onClose, children }: { open: boolean; titl
             {title}
           </h2>
           {children}
-          {typed && <LeaveGuard submitted={submitted} what={title} />}
+          {typed && <LeaveGuard what={title} />}
         </div>
       )}
     </dialog>
@@ -48,10 +46,11 @@ export function Dialog({ open, title, onClose, children }: { open: boolean; titl
 }
 
 /** Asks before a navigation discards what was typed in an open dialog. Rendered only then: a router holds one blocker at a time. */
-function LeaveGuard({ submitted, what }: { submitted: { current: boolean }; what: string }) {
+function LeaveGuard({ what }: { what: string }) {
   const blocker = useBlocker(
     ({ currentLocation, nextLocation }) =>
-      !submitted.current && (currentLocation.pathname !== nextLocation.pathname || currentLocation.search !== nextLocation.search),
+      !(nextLocation.state as { sentFromDialog?: boolean } | null)?.sentFromDialog &&
+      (currentLocation.pathname !== nextLocation.pathname || currentLocation.search !== nextLocation.search),
   );
   useEffect(() => {
     const warn = (event: BeforeUnloadEvent) => event.preventDefault();

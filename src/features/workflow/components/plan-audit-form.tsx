@@ -3,6 +3,7 @@ import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { FormErrorNotice } from '../../../components/ui/form-error';
+import { SENT_FROM_DIALOG } from '../../../components/ui/dialog';
 import { formErrors } from '../../../lib/field-errors';
 import { useAreaOptions, useCreateAudit, useTechniqueOptions } from '../api/workflow';
 
@@ -32,7 +33,7 @@ export function PlanAuditForm({ leadAuditorId, leadAreaId, onCancel }: { leadAud
     event.preventDefault();
     create.mutate(
       { ...form, areaId: Number(form.areaId), leadAuditorId, techniques: scope.map((techniqueId) => ({ techniqueId, revision: revisionOf(techniqueId) })) },
-      { onSuccess: (audit) => navigate(`/audits/${audit.id}`) },
+      { onSuccess: (audit) => navigate(`/audits/${audit.id}`, { state: SENT_FROM_DIALOG }) },
     );
   };
 

@@ -3,6 +3,7 @@ import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { FormErrorNotice } from '../../../components/ui/form-error';
+import { SENT_FROM_DIALOG } from '../../../components/ui/dialog';
 import { formErrors } from '../../../lib/field-errors';
 import { useRaiseFinding } from '../api/workflow';
 
@@ -24,7 +25,7 @@ export function RaiseFindingForm({ auditId, techniqueCodes, onCancel }: { auditI
   const submit = (event: FormEvent) => {
     event.preventDefault();
     const { techniqueCode, ...rest } = form;
-    raise.mutate({ ...rest, ...(techniqueCode ? { techniqueCode } : {}) }, { onSuccess: (finding) => navigate(`/findings/${finding.id}`) });
+    raise.mutate({ ...rest, ...(techniqueCode ? { techniqueCode } : {}) }, { onSuccess: (finding) => navigate(`/findings/${finding.id}`, { state: SENT_FROM_DIALOG }) });
   };
   return (
     <form onSubmit={submit} className="flex flex-col gap-3">
