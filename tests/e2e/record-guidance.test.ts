@@ -36,7 +36,10 @@ describe('record guidance in the browser', () => {
 
   it('when the auditor plans an audit ending before it starts, then the end date field says so and no generic message shows', async () => {
     const auditor = await as('auditor@tarnbrook.example');
-    await auditor.goto(`${inject('baseUrl')}/audits`);
+    // Reached inside the app, so that browser Back stays in it (the guard asks before a page of the app replaces the dialog).
+    await auditor.goto(`${inject('baseUrl')}/findings`);
+    await auditor.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: 'Audits' }).click();
+    await auditor.getByRole('heading', { name: 'Audits', level: 1 }).waitFor();
     await auditor.getByRole('button', { name: 'Plan an audit' }).click();
     const plan = auditor.getByRole('dialog', { name: 'Plan an audit' });
     await plan.getByLabel('Title').fill('Dates the wrong way round');

@@ -131,7 +131,13 @@ export function NextStepPanel({ next, state, canAct, actions }: { next: NextStep
           ))}
         </ul>
       )}
-      {canAct ? <div className="mt-2">{actions}</div> : <p className="mt-1 text-ink-soft">You have nothing to do on this record now.</p>}
+      {canAct ? (
+        <div className="mt-2">{actions}</div>
+      ) : (
+        <p className="mt-1 text-ink-soft">
+          {next.blockers.length ? 'The step’s button appears here, for the person who takes it, once what blocks it is done.' : 'You have nothing to do on this record now.'}
+        </p>
+      )}
     </section>
   );
 }
