@@ -27,7 +27,10 @@ export function Dialog({ open, title, onClose, children }: { open: boolean; titl
   return (
     <dialog
       ref={ref}
-      onClose={onClose}
+      // React passes a nested dialog's close event up its tree: only this dialog's own closing closes it.
+      onClose={(event) => {
+        if (event.target === ref.current) onClose();
+      }}
       onInput={() => setTyped(true)}
       aria-labelledby={titleId}
       className="m-auto w-full max-w-lg rounded-xl border border-ink/10 bg-paper p-0 text-ink shadow-2xl backdrop:bg-ink/50"
