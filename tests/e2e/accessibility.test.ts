@@ -23,7 +23,7 @@ async function as(email: string): Promise<Page> {
   return page;
 }
 
-const focused = (page: Page) => page.evaluate(() => document.activeElement?.outerHTML.slice(0, 120) ?? 'nothing');
+const focused = (page: Page) => page.evaluate(() => `${document.activeElement?.tagName} ${document.activeElement?.textContent?.trim().slice(0, 80) ?? ''}`);
 const AXE_SOURCE = createRequire(import.meta.url).resolve('axe-core/axe.min.js');
 const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22a', 'wcag22aa'];
 
