@@ -32,6 +32,23 @@ export function Dialog({ open, title, onClose, children }: { open: boolean; titl
         if (event.target === ref.current) onClose();
       }}
       onInput={() => setTyped(true)}
+      onKeyDown={(event) => {
+        // A modal <dialog> makes the page inert but lets Tab leave for the browser's own controls: keep it going round inside.
+        if (event.key !== 'Tab' || event.target === null) return;
+        const focusable = [...(ref.current?.querySelectorAll<HTMLElement>('a[href], button:not([disabled]), input:not([disabled]), select:not([disabled]), textarea:not([disabled]), [tabindex]:not([tabindex="-1"])') ?? [])].filter(
+          (element) => element.offsetParent !== null && element.closest('dialog') === ref.current,
+        );
+        if (!focusable.length) return;
+        const first = focusable[0];
+        const last = focusable[focusable.length - 1];
+        if (!event.shiftKey && document.activeElement === last) {
+          event.preventDefault();
+          first.focus();
+        } else if (event.shiftKey && document.activeElement === first) {
+          event.preventDefault();
+          last.focus();
+        }
+      }}
       aria-labelledby={titleId}
       className="m-auto w-full max-w-lg rounded-xl border border-ink/10 bg-paper p-0 text-ink shadow-2xl backdrop:bg-ink/50"
     >
