@@ -58,7 +58,7 @@ export function presentFinding(finding: Finding, extra: { allowedEvents: string[
 
 export function presentFindingDetail(
   finding: Finding,
-  extra: { allowedEvents: string[]; now: Date; canAssignAction: boolean; signatures: Signature[] },
+  extra: { allowedEvents: string[]; now: Date; canAssignAction: boolean; signatures: Signature[]; undecidedInspectionCount: number },
 ): FindingDetailView {
-  return { ...presentFinding(finding, extra), signatures: extra.signatures.map(presentSignature) };
+  return { ...presentFinding(finding, extra), signatures: extra.signatures.map(presentSignature), undecidedInspectionCount: extra.undecidedInspectionCount };
 }

@@ -1,5 +1,5 @@
 // Corrective actions: assign (create), list, read.
-import { Op, type WhereOptions } from 'sequelize';
+import { Op, col, fn, where, type WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import {
   CORRECTIVE_ACTION_MACHINE_VERSION,
@@ -114,6 +114,22 @@ function overdueClause(today: string): WhereOptions {
   return { state: { [Op.ne]: 'verified' }, dueDate: { [Op.lt]: today } };
 }
 
+/** The dashboard's definitions (dashboard.service.ts): verified on or before the due day, after it, overdue, open and not yet due. */
+function timelinessClause(kind: 'on_time' | 'late' | 'overdue' | 'not_yet_due', today: string): WhereOptions {
+  const verifiedDay = fn('DATE', col('CorrectiveAction.verified_at'));
+  const dueDay = col('CorrectiveAction.due_date');
+  switch (kind) {
+    case 'on_time':
+      return { [Op.and]: [{ state: 'verified' }, where(verifiedDay, Op.lte, dueDay)] };
+    case 'late':
+      return { [Op.and]: [{ state: 'verified' }, where(verifiedDay, Op.gt, dueDay)] };
+    case 'overdue':
+      return overdueClause(today);
+    case 'not_yet_due':
+      return { state: { [Op.ne]: 'verified' }, dueDate: { [Op.gte]: today } };
+  }
+}
+
 export async function listActions(
   deps: AppDeps,
   ability: AppAbility,
@@ -127,6 +143,9 @@ export async function listActions(
   if (query.areaId) and.push({ '$finding.area_id$': query.areaId });
   if (query.overdue === 'true') and.push(overdueClause(todayIso(now)));
   if (query.overdue === 'false') and.push({ [Op.not]: overdueClause(todayIso(now)) });
+  if (query.dueFrom) and.push({ dueDate: { [Op.gte]: query.dueFrom } });
+  if (query.dueTo) and.push({ dueDate: { [Op.lte]: query.dueTo } });
+  if (query.timeliness) and.push(timelinessClause(query.timeliness, todayIso(now)));
   if (query.q) {
     const like = `%${query.q}%`;
     and.push({

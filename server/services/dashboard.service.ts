@@ -13,10 +13,16 @@ interface Range {
   areaId: number | null;
 }
 
+/**
+ * By default a year back and a year ahead: findings can only be raised up to
+ * today, but corrective actions fall due in the future, and a range ending
+ * today would leave "Open, not yet due" always empty.
+ */
 function defaultRange(query: DashboardQuery, now: Date): Range {
   const today = isoDay(now);
   const yearAgo = new Date(Date.UTC(now.getUTCFullYear() - 1, now.getUTCMonth(), 1));
-  return { from: query.from ?? isoDay(yearAgo), to: query.to ?? today, today, areaId: query.areaId ?? null };
+  const endOfMonthYearAhead = new Date(Date.UTC(now.getUTCFullYear() + 1, now.getUTCMonth() + 1, 0));
+  return { from: query.from ?? isoDay(yearAgo), to: query.to ?? isoDay(endOfMonthYearAhead), today, areaId: query.areaId ?? null };
 }
 
 const select = <T extends object>(sequelize: Sequelize, sql: string, replacements: Record<string, unknown>) =>

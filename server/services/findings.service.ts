@@ -169,8 +169,10 @@ export async function listFindings(
   const and: WhereOptions[] = [];
   const state = stateFilter(query.state);
   if (state) and.push({ state });
-  if (query.class) and.push({ class: query.class });
+  if (query.class) and.push({ class: query.class === 'unclassified' ? null : query.class });
   if (query.areaId) and.push({ areaId: query.areaId });
+  if (query.raisedFrom) and.push({ createdAt: { [Op.gte]: new Date(`${query.raisedFrom}T00:00:00Z`) } });
+  if (query.raisedTo) and.push({ createdAt: { [Op.lt]: new Date(Date.parse(`${query.raisedTo}T00:00:00Z`) + 86_400_000) } });
   if (query.auditId) and.push({ auditId: query.auditId });
   if (query.owner) and.push({ '$action.owner_id$': query.owner });
   if (query.overdue === 'true') and.push(overdueClause(todayIso(now)));
@@ -226,5 +228,6 @@ export async function getFinding(deps: AppDeps, ability: AppAbility, id: number)
     signatures,
     canAssignAction: mayAssignAction(ability, finding),
     allowedEvents: allowedEventsForUser('finding', finding, { actionOwnerId: finding.action?.ownerId ?? null }, facts.get(id)!, ability),
+    undecidedInspectionCount: facts.get(id)!.undecidedInspectionCount,
   });
 }

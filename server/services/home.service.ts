@@ -60,7 +60,7 @@ export async function waitingOn(deps: AppDeps, actor: EventActor, ability: AppAb
     const allowed = allowedEventsForUser('audit', audit, {}, { openFindingCount: auditCounts.get(audit.id) ?? 0 }, ability);
     const todo = allowed.map((type) => AUDIT_TODO[type]).find(Boolean);
     if (!todo) continue;
-    items.push({ recordType: 'audit', id: audit.id, label: 'Audit', title: audit.title, state: audit.state, todo, dueDate: audit.plannedEnd, overdue: audit.plannedEnd < today && ['planned', 'fieldwork'].includes(audit.state) });
+    items.push({ recordType: 'audit', id: audit.id, label: `Audit ${audit.plannedStart} to ${audit.plannedEnd}`, title: audit.title, state: audit.state, todo, dueDate: audit.plannedEnd, overdue: audit.plannedEnd < today && ['planned', 'fieldwork'].includes(audit.state) });
   }
   for (const finding of findings) {
     const fact = (findingFacts.get(finding.id) ?? { undecidedInspectionCount: 0 }) as { undecidedInspectionCount: number };

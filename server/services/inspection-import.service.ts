@@ -175,6 +175,8 @@ async function checkFile(deps: AppDeps, ability: AppAbility, buffer: Buffer, tra
   const lookups = await loadLookups(parsed.records, transaction);
   const rows: InspectionImportRow[] = [];
   const candidates: { row: number; input: InspectionInput }[] = [];
+  // Every row also goes through the form's rules, whatever else failed, so that a row's problems show at once.
+  const ruleChecks: { row: number; input: InspectionInput; reported: Set<string>; errors: InspectionImportError[] }[] = [];
 
   for (const { row, cells } of parsed.records) {
     const rowErrors: InspectionImportError[] = [];
@@ -263,16 +265,26 @@ async function checkFile(deps: AppDeps, ability: AppAbility, buffer: Buffer, tra
     } else if (rowErrors.length === 0) {
       candidates.push({ row, input: parsedInput.data });
     }
-    errors.push(...rowErrors);
+    const standIn = {
+      techniqueRevisionId: revision?.id ?? 0,
+      performedOn: cells.date,
+      inspectorId: user?.id ?? 0,
+      ...equipment,
+    } as InspectionInput;
+    ruleChecks.push({ row, input: parsedInput.success ? parsedInput.data : standIn, reported, errors: rowErrors });
   }
 
-  // The same checks as the form, for every row that got this far.
-  const facts = await loadInspectionFacts(candidates.map((c) => c.input), transaction);
+  // The same checks as the form, for every row; a column already reported is not reported twice.
+  const facts = await loadInspectionFacts(ruleChecks.map((c) => c.input), transaction);
   const now = deps.clock.now();
-  for (const candidate of candidates) {
-    for (const error of inspectionRuleErrors(candidate.input, facts, now)) {
-      errors.push({ row: candidate.row, field: COLUMN_OF_FIELD[error.path], message: error.message });
+  for (const check of ruleChecks) {
+    for (const error of inspectionRuleErrors(check.input, facts, now)) {
+      const column = COLUMN_OF_FIELD[error.path];
+      if (check.reported.has(column)) continue;
+      check.reported.add(column);
+      check.errors.push({ row: check.row, field: column, message: error.message });
     }
+    errors.push(...check.errors);
   }
   const duplicates = await duplicateErrors(candidates, transaction);
   errors.push(...duplicates.errors);

@@ -34,6 +34,7 @@ interface RegisterRow {
   code: string;
   title: string;
   revision: string;
+  state: string;
   content: unknown;
 }
 
@@ -42,10 +43,10 @@ export async function loadRegisterTechnique(
   sequelize: Sequelize,
   techniqueId: number,
   transaction?: Transaction,
-): Promise<{ code: string; title: string; revision: string; content: unknown } | null> {
+): Promise<{ code: string; title: string; revision: string; state: string; content: unknown } | null> {
   try {
     const [row] = await sequelize.query<RegisterRow>(
-      `SELECT t.id, t.code, t.title, r.revision, r.content
+      `SELECT t.id, t.code, t.title, r.revision, r.state, r.content
          FROM techniques t JOIN technique_revisions r ON r.technique_id = t.id
         WHERE t.id = ?
         ORDER BY (r.state = 'approved') DESC, r.seq DESC LIMIT 1`,
@@ -53,7 +54,7 @@ export async function loadRegisterTechnique(
     );
     if (!row) return null;
     const content = typeof row.content === 'string' ? JSON.parse(row.content) : row.content;
-    return { code: row.code, title: row.title, revision: row.revision, content };
+    return { code: row.code, title: row.title, revision: row.revision, state: row.state, content };
   } catch (error) {
     if ((error as { original?: { code?: string } }).original?.code === 'ER_NO_SUCH_TABLE') return null;
     throw error;
@@ -63,13 +64,24 @@ export async function loadRegisterTechnique(
 /** Resolves the scope of a new audit into what the audit keeps. */
 export async function resolveScope(
   sequelize: Sequelize,
-  items: Array<{ techniqueId?: number; technique?: Record<string, unknown> }>,
+  items: Array<{ techniqueId?: number; revision?: string; technique?: Record<string, unknown> }>,
 ): Promise<AuditScopeTechnique[]> {
   const scope: AuditScopeTechnique[] = [];
   for (const [index, item] of items.entries()) {
     if (item.techniqueId) {
       const found = await loadRegisterTechnique(sequelize, item.techniqueId);
       if (!found) throw invalidScope(index, `there is no technique ${item.techniqueId} in the register`);
+      // An audit covers the revision in force: a technique with only a draft has none yet.
+      if (found.state !== 'approved') {
+        throw invalidScope(index, `${found.code} has no approved revision in force (rev ${found.revision} is a draft)`, [
+          { path: `techniques.${index}.techniqueId`, message: `${found.code} has no approved revision in force (rev ${found.revision} is a draft)` },
+        ]);
+      }
+      // The revision the planner saw must still be the one in force.
+      if (item.revision !== undefined && item.revision !== found.revision) {
+        const message = `${found.code} rev ${item.revision} is not the revision in force (rev ${found.revision} is); plan the audit again`;
+        throw invalidScope(index, message, [{ path: `techniques.${index}.revision`, message }]);
+      }
       const content = found.content && typeof found.content === 'object' ? (found.content as Record<string, unknown>) : {};
       const definition = parseTechnique({ ...content, code: found.code, title: found.title, revision: found.revision });
       scope.push({

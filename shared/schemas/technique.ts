@@ -33,8 +33,14 @@ interface NumberOptions {
   max: number;
 }
 
+/** A bound as a person reads it: 100000000 Hz → "100 MHz". */
+function boundText(value: number, unit: string): string {
+  if (unit === 'Hz' && value >= 1e6 && Number.isInteger(value / 1e6)) return `${value / 1e6} MHz`;
+  if (unit === 'Hz' && value >= 1e3 && Number.isInteger(value / 1e3)) return `${value / 1e3} kHz`;
+  return `${value}${unit ? ` ${unit}` : ''}`;
+}
+
 function numberField({ field, label, unit, greaterThan = 0, atLeast, max }: NumberOptions) {
-  const unitText = unit ? ` ${unit}` : '';
   const base = z.number({
     error: (issue) =>
       issue.input === undefined
@@ -43,9 +49,9 @@ function numberField({ field, label, unit, greaterThan = 0, atLeast, max }: Numb
   });
   const bounded =
     atLeast !== undefined
-      ? base.min(atLeast, { error: `${field} (${label}) must be at least ${atLeast}${unitText}` })
-      : base.gt(greaterThan, { error: `${field} (${label}) must be greater than ${greaterThan}${unitText}` });
-  return bounded.max(max, { error: `${field} (${label}) must be at most ${max}${unitText}` });
+      ? base.min(atLeast, { error: `${field} (${label}) must be at least ${boundText(atLeast, unit)}` })
+      : base.gt(greaterThan, { error: `${field} (${label}) must be greater than ${boundText(greaterThan, unit)}` });
+  return bounded.max(max, { error: `${field} (${label}) must be at most ${boundText(max, unit)}` });
 }
 
 function textField(field: string, label: string, maxLength: number) {

@@ -18,6 +18,8 @@ export const AuditScopeItemSchema = z
   .object({
     /** A technique of the register. */
     techniqueId: z.number().int().positive().optional(),
+    /** The revision letter the planner was shown: refused unless it is the register's revision in force. */
+    revision: z.string().trim().min(1).max(8).optional(),
     /** Or the technique as written (JSON the checklist engine reads), when it is not in the register. */
     technique: z.record(z.string(), z.unknown()).optional(),
   })
@@ -113,11 +115,15 @@ const booleanQuery = z.enum(['true', 'false']).optional();
 
 export const FindingListQuerySchema = ListQueryBaseSchema.extend({
   state: z.string().regex(/^[a-z_,]*$/, 'state is a state name or a comma-separated list of them').max(200).optional(),
-  class: z.enum(FINDING_CLASSES).optional(),
+  /** A class, or "unclassified" for findings not yet classified (no class). */
+  class: z.enum([...FINDING_CLASSES, 'unclassified']).optional(),
   areaId: z.coerce.number().int().positive().optional(),
   owner: z.coerce.number().int().positive().optional(),
   auditId: z.coerce.number().int().positive().optional(),
   overdue: booleanQuery,
+  /** Raised on or after / on or before these days (UTC), as the dashboard counts them. */
+  raisedFrom: IsoDateSchema.optional(),
+  raisedTo: IsoDateSchema.optional(),
 }).strict();
 
 // ---- corrective actions ----------------------------------------------------
@@ -155,6 +161,11 @@ export const ActionListQuerySchema = ListQueryBaseSchema.extend({
   areaId: z.coerce.number().int().positive().optional(),
   owner: z.coerce.number().int().positive().optional(),
   overdue: booleanQuery,
+  /** Due on or after / on or before these days, as the dashboard counts them. */
+  dueFrom: IsoDateSchema.optional(),
+  dueTo: IsoDateSchema.optional(),
+  /** The dashboard's four kinds: verified by the due date, verified after it, overdue, open and not yet due. */
+  timeliness: z.enum(['on_time', 'late', 'overdue', 'not_yet_due']).optional(),
 }).strict();
 
 // ---- views -----------------------------------------------------------------
@@ -296,6 +307,8 @@ export interface FindingView extends RecordBase {
 
 export interface FindingDetailView extends FindingView {
   signatures: SignatureView[];
+  /** Past inspections in the impact worksheet without a containment decision (counted only in containment, else 0). */
+  undecidedInspectionCount: number;
 }
 
 export interface ActionView extends RecordBase {

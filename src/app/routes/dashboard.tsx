@@ -25,6 +25,9 @@ export function Component() {
       { replace: true },
     );
   const data = dashboard.data;
+  // The tiles count findings raised in the range: their lists filter the same way.
+  const raised = data ? `&raisedFrom=${data.range.from}&raisedTo=${data.range.to}` : '';
+  const area = data?.range.areaId ? `&areaId=${data.range.areaId}` : '';
 
   return (
     <div>
@@ -51,9 +54,9 @@ export function Component() {
         <>
           <dl className="mb-4 grid grid-cols-2 gap-3 md:grid-cols-4">
             {[
-              { label: 'Open findings', value: data.totals.openFindings, to: `/findings?state=${OPEN_FINDING_STATES}${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}` },
-              { label: 'Overdue actions', value: data.totals.overdueActions, to: `/actions?overdue=true${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}`, alarm: data.totals.overdueActions > 0 },
-              { label: 'Findings closed', value: data.totals.closedFindings, to: `/findings?state=closed${data.range.areaId ? `&areaId=${data.range.areaId}` : ''}` },
+              { label: 'Open findings', value: data.totals.openFindings, to: `/findings?state=${OPEN_FINDING_STATES}${raised}${area}` },
+              { label: 'Overdue actions', value: data.totals.overdueActions, to: `/actions?overdue=true${area}`, alarm: data.totals.overdueActions > 0 },
+              { label: 'Findings closed', value: data.totals.closedFindings, to: `/findings?state=closed${raised}${area}` },
               { label: 'Checklist runs', value: data.totals.checklistRuns, to: '/audits' },
             ].map((tile) => (
               <div key={tile.label} className="rounded-lg border border-ink/10 bg-white p-3 shadow-sm">

@@ -71,8 +71,8 @@ export function Component() {
               {(signIn.error as Error).message}
             </p>
           )}
-          <Button type="submit" disabled={signIn.isPending} className="py-2">
-            {signIn.isPending ? 'Signing in…' : 'Sign in'}
+          <Button type="submit" busy={signIn.isPending} busyLabel="Signing in…" className="py-2">
+            {'Sign in'}
           </Button>
         </form>
         <div className="mt-6 border-t border-ink/10 pt-4">

@@ -1,5 +1,5 @@
-import { useMemo, useState } from 'react';
-import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { AbilityProvider } from '@casl/react';
 import { useSession, useSignOut } from '../../features/auth/api/session';
 import { abilityFromPackedRules } from '../../lib/ability';
@@ -11,21 +11,43 @@ import { NAV_ITEMS } from '../nav-items';
 import { Dialog } from '../../components/ui/dialog';
 import { PasswordChangeForm } from '../../features/auth/components/password-change-form';
 
+/** The user menu: opening it moves focus to its first item; Escape or a click elsewhere closes it, Escape returning focus to the button. */
 function UserMenu({ name, roles, area }: { name: string; roles: string; area: string | null }) {
   const [open, setOpen] = useState(false);
   const [changing, setChanging] = useState(false);
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const button = useRef<HTMLButtonElement>(null);
+  const menu = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!open) return;
+    menu.current?.querySelector<HTMLElement>('[role="menuitem"]')?.focus();
+    const onKey = (event: KeyboardEvent) => {
+      if (event.key !== 'Escape') return;
+      setOpen(false);
+      button.current?.focus();
+    };
+    const onPointer = (event: PointerEvent) => {
+      if (!menu.current?.contains(event.target as Node) && !button.current?.contains(event.target as Node)) setOpen(false);
+    };
+    document.addEventListener('keydown', onKey);
+    document.addEventListener('pointerdown', onPointer);
+    return () => {
+      document.removeEventListener('keydown', onKey);
+      document.removeEventListener('pointerdown', onPointer);
+    };
+  }, [open]);
   return (
     <div className="relative">
       <button
+        ref={button}
         type="button"
         className="flex items-center gap-2 rounded-md px-2 py-1 text-left text-sm text-white hover:bg-white/10"
         aria-haspopup="menu"
         aria-expanded={open}
         onClick={() => setOpen((value) => !value)}
       >
-        <span className="flex h-8 w-8 items-center justify-center rounded-full bg-copper font-bold text-white" aria-hidden="true">
+        <span className="flex h-8 w-8 items-center justify-center rounded-full bg-copper-deep font-bold text-white" aria-hidden="true">
           {name
             .split(' ')
             .map((part) => part[0])
@@ -38,7 +60,7 @@ function UserMenu({ name, roles, area }: { name: string; roles: string; area: st
         </span>
       </button>
       {open && (
-        <div role="menu" className="absolute right-0 z-20 mt-2 w-60 rounded-lg border border-ink/10 bg-white p-2 text-sm text-ink shadow-lg">
+        <div ref={menu} role="menu" aria-label="Your account" className="absolute right-0 z-20 mt-2 w-60 rounded-lg border border-ink/10 bg-white p-2 text-sm text-ink shadow-lg">
           <p className="px-2 py-1 text-xs text-ink-soft">{area ? `Area: ${area}` : 'No production area'}</p>
           <button
             type="button"
@@ -92,7 +114,33 @@ function ChooseOwnPassword({ name }: { name: string }) {
   );
 }
 
+/**
+ * After a page change, focus moves to the new page's main heading (so a screen
+ * reader announces it and Tab starts from the content), not left on the link.
+ */
+function useFocusHeadingOnPageChange() {
+  const { pathname } = useLocation();
+  // The path this layout last saw: a fresh load (or a remount) focuses nothing, a change of page does.
+  const previous = useRef(pathname);
+  useEffect(() => {
+    if (previous.current === pathname) return;
+    previous.current = pathname;
+    // Routes load lazily: wait for the heading to appear, for a short while.
+    let tries = 0;
+    const timer = window.setInterval(() => {
+      const heading = document.querySelector<HTMLElement>('main h1');
+      tries += 1;
+      if (heading || tries > 40) window.clearInterval(timer);
+      if (!heading) return;
+      heading.tabIndex = -1;
+      heading.focus({ preventScroll: false });
+    }, 50);
+    return () => window.clearInterval(timer);
+  }, [pathname]);
+}
+
 export function Component() {
+  useFocusHeadingOnPageChange();
   const session = useSession();
   const ability = useMemo(() => abilityFromPackedRules(session.data?.rules ?? []), [session.data?.rules]);
   if (!session.data) return <Loading what="Checking your session" />;
@@ -103,6 +151,12 @@ export function Component() {
   return (
     <AbilityProvider value={ability}>
       <div className="flex min-h-screen flex-col">
+        <a
+          href="#main-content"
+          className="sr-only z-50 rounded-md bg-white px-3 py-2 font-bold text-ink focus:not-sr-only focus:fixed focus:left-2 focus:top-2"
+        >
+          Skip to the main content
+        </a>
         <header className="bg-ink">
           <div className="mx-auto flex max-w-7xl items-center justify-between gap-4 px-4 py-2">
             <NavLink to="/" className="flex items-center gap-2 text-lg font-bold text-white">
@@ -129,7 +183,7 @@ export function Component() {
             </ul>
           </nav>
         </header>
-        <main className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
+        <main id="main-content" tabIndex={-1} className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 focus:outline-none">
           <Outlet />
         </main>
         <footer className="border-t border-ink/10 bg-white">

@@ -9,12 +9,23 @@ const VARIANTS: Record<Variant, string> = {
   ghost: 'text-ink hover:bg-ink/5',
 };
 
-export function Button({ variant = 'primary', className = '', type = 'button', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
+  variant?: Variant;
+  /** A request started by this button is in flight: the button is disabled and reads `busyLabel`. */
+  busy?: boolean;
+  busyLabel?: string;
+}
+
+export function Button({ variant = 'primary', className = '', type = 'button', busy = false, busyLabel = 'Working…', disabled, children, ...props }: ButtonProps) {
   return (
     <button
       type={type}
-      className={`inline-flex items-center justify-center gap-2 rounded-md px-3 py-1.5 text-sm font-bold transition-colors disabled:cursor-not-allowed disabled:opacity-60 ${VARIANTS[variant]} ${className}`}
+      disabled={busy || disabled}
+      aria-busy={busy || undefined}
+      className={`inline-flex items-center justify-center gap-2 rounded-md px-3 py-1.5 text-sm font-bold transition-colors focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-lagoon disabled:cursor-not-allowed disabled:opacity-60 ${VARIANTS[variant]} ${className}`}
       {...props}
-    />
+    >
+      {busy ? busyLabel : children}
+    </button>
   );
 }

@@ -11,6 +11,7 @@ export function ConfirmDialog({
   confirmLabel,
   danger = false,
   pending = false,
+  confirmDisabled = false,
   error,
   onConfirm,
   onCancel,
@@ -21,6 +22,8 @@ export function ConfirmDialog({
   confirmLabel: string;
   danger?: boolean;
   pending?: boolean;
+  /** The confirm button waits, e.g. for what the dialog must show first. */
+  confirmDisabled?: boolean;
   error?: unknown;
   onConfirm(): void;
   onCancel(): void;
@@ -33,8 +36,8 @@ export function ConfirmDialog({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button variant={danger ? 'danger' : 'primary'} onClick={onConfirm} disabled={pending}>
-          {pending ? 'Working…' : confirmLabel}
+        <Button variant={danger ? 'danger' : 'primary'} onClick={onConfirm} busy={pending} disabled={confirmDisabled}>
+          {confirmLabel}
         </Button>
       </div>
     </Dialog>

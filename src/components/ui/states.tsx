@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { ApiError } from '../../lib/api-client';
+import { errorInWords } from '../../lib/field-errors';
 
 export function Loading({ what = 'Loading' }: { what?: string }) {
   return (
@@ -9,8 +9,9 @@ export function Loading({ what = 'Loading' }: { what?: string }) {
   );
 }
 
-export function ErrorNotice({ error, title = 'Something went wrong' }: { error: unknown; title?: string }) {
-  const message = error instanceof ApiError ? error.message : error instanceof Error ? error.message : String(error);
+/** An error in words; a validation error names its fields by label (pass the form's labels), never by key. */
+export function ErrorNotice({ error, title = 'Something went wrong', labels }: { error: unknown; title?: string; labels?: Record<string, string> }) {
+  const message = errorInWords(error, labels);
   return (
     <div role="alert" className="rounded-md border border-fail/30 bg-red-50 px-3 py-2 text-sm text-fail">
       <strong className="font-bold">{title}.</strong> {message}

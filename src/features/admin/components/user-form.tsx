@@ -5,7 +5,8 @@ import { useSession } from '../../auth/api/session';
 import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { formErrors } from '../../../lib/field-errors';
 import { useAreas } from '../api/users';
 
 export interface UserFormValues {
@@ -16,6 +17,8 @@ export interface UserFormValues {
   areaId: number | null;
   mailDigest: boolean;
 }
+
+const USER_FIELDS = { email: 'E-mail address', displayName: 'Name', password: 'Password', roles: 'Roles', areaId: 'Area' };
 
 export function UserForm({
   user,
@@ -44,7 +47,7 @@ export function UserForm({
     mailDigest: user?.mailDigest ?? false,
   });
   const apiError = error instanceof ApiError ? error : null;
-  const fieldError = (path: string) => apiError?.fieldErrors.find((detail) => detail.path.startsWith(path))?.message;
+  const fieldError = formErrors(apiError, USER_FIELDS).at;
   const set = <K extends keyof UserFormValues>(key: K, value: UserFormValues[K]) => setValues((current) => ({ ...current, [key]: value }));
 
   const submit = (event: FormEvent) => {
@@ -112,13 +115,13 @@ export function UserForm({
           Send reminders as one daily digest
         </label>
       )}
-      {apiError && apiError.fieldErrors.length === 0 && <ErrorNotice error={apiError} title="Not saved" />}
+      {apiError && <FormErrorNotice error={apiError} fields={USER_FIELDS} />}
       <div className="mt-2 flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : user ? 'Save changes' : 'Create user'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {user ? 'Save changes' : 'Create user'}
         </Button>
       </div>
     </form>

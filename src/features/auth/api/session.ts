@@ -1,4 +1,5 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api, ApiError, setCsrfToken } from '../../../lib/api-client';
 import type { SessionResponse } from '../../../../shared/types/session';
 import type { SignInInput } from '../../../../shared/schemas/session';

@@ -12,7 +12,10 @@ export function ChartCard({ id, title, hint, chart, table, empty }: { id: string
         <p className="rounded border border-dashed border-ink/20 px-3 py-8 text-center text-sm text-ink-soft">No records in this range.</p>
       ) : (
         <>
-          <div className="h-64 w-full">{chart}</div>
+          {/* The drawing is one image to assistive technology, named; its numbers and links are in the table below. */}
+          <div className="h-64 w-full" role="img" aria-label={`${title}: chart; the numbers and links to the lists are in the table below it`}>
+            {chart}
+          </div>
           <details className="text-sm">
             <summary className="cursor-pointer text-xs font-bold text-lagoon">The numbers behind this chart</summary>
             <div className="mt-2 overflow-x-auto">{table}</div>

@@ -27,12 +27,27 @@ const CLASS_LABELS: Record<string, string> = { ...FINDING_CLASS_LABELS, unclassi
 const classLabel = (value: string) => CLASS_LABELS[value] ?? value;
 
 type Query = Record<string, string | number | undefined>;
+type ActionTimeliness = 'on_time' | 'late' | 'overdue' | 'not_yet_due';
 
 function listUrl(path: string, query: Query): string {
   const params = new URLSearchParams();
   for (const [key, value] of Object.entries(query)) if (value !== undefined && value !== '') params.set(key, String(value));
   const text = params.toString();
   return text ? `${path}?${text}` : path;
+}
+
+/** Legend labels in the text colour: the series colours are for the swatches, too light for text. */
+const legendText = (value: string) => <span style={{ color: COLOURS.ink }}>{value}</span>;
+
+/** A count in a chart's table, linked to the list behind it (0 stays plain text). */
+function countLink(count: number, to: string, className = 'text-lagoon underline') {
+  return count ? (
+    <Link className={className} to={to}>
+      {count}
+    </Link>
+  ) : (
+    0
+  );
 }
 
 export function DashboardCharts({ data, animate = true }: { data: DashboardView; animate?: boolean }) {
@@ -46,11 +61,24 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
     for (const band of AGE_BANDS) row[band] = data.openFindingsByClassAge.find((r) => r.class === cls && r.band === band)?.count ?? 0;
     return row;
   });
-  // Findings without a class are raised or in review: the list of open findings, unfiltered by class.
-  const openFindingsUrl = (cls: string) => listUrl('/findings', { state: OPEN_FINDING_STATES, class: cls === 'unclassified' ? undefined : cls, areaId });
+  // Each drill-down filters exactly as its bar counts (dashboard.service.ts): findings raised in the range, open, of that class
+  // ("unclassified" is the list's own filter for findings without a class).
+  const raised = { raisedFrom: data.range.from, raisedTo: data.range.to };
+  const openFindingsUrl = (cls: string) => listUrl('/findings', { state: OPEN_FINDING_STATES, class: cls, ...raised, areaId });
 
-  // ---- actions by month
-  const actionsUrl = (overdue: boolean) => listUrl('/actions', { overdue: overdue ? 'true' : undefined, areaId });
+  // ---- actions by month: due in that month (within the range), of one of the four kinds
+  const actionsUrl = (month: string, timeliness: ActionTimeliness) => {
+    const [year, monthIndex] = month.split('-').map(Number);
+    const first = `${month}-01`;
+    const last = new Date(Date.UTC(year, monthIndex, 0)).toISOString().slice(0, 10);
+    return listUrl('/actions', {
+      dueFrom: first < data.range.from ? data.range.from : first,
+      dueTo: last > data.range.to ? data.range.to : last,
+      timeliness,
+      areaId,
+    });
+  };
+  const monthOf = (entry: unknown) => String((entry as { payload?: { month?: string } }).payload?.month);
 
   return (
     <div className="grid gap-4 lg:grid-cols-2">
@@ -61,12 +89,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={ageRows.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={ageRows} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={ageRows} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="label" />
               <YAxis allowDecimals={false} />
               <Tooltip />
-              <Legend />
+              <Legend formatter={legendText} />
               {AGE_BANDS.map((band, index) => (
                 <Bar
                   key={band}
@@ -106,16 +134,16 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.actionsByMonth.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={data.actionsByMonth} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={data.actionsByMonth} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="month" />
               <YAxis allowDecimals={false} />
               <Tooltip />
-              <Legend />
-              <Bar dataKey="closedOnTime" name="Closed on time" stackId="a" fill={COLOURS.pass} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(false))} />
-              <Bar dataKey="closedLate" name="Closed late" stackId="a" fill={COLOURS.warn} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(false))} />
-              <Bar dataKey="overdue" name="Overdue" stackId="a" fill={COLOURS.fail} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(true))} />
-              <Bar dataKey="openNotDue" name="Open, not yet due" stackId="a" fill={COLOURS.soft} isAnimationActive={animate} cursor="pointer" onClick={() => navigate(actionsUrl(false))} />
+              <Legend formatter={legendText} />
+              <Bar dataKey="closedOnTime" name="Closed on time" stackId="a" fill={COLOURS.pass} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'on_time'))} />
+              <Bar dataKey="closedLate" name="Closed late" stackId="a" fill={COLOURS.warn} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'late'))} />
+              <Bar dataKey="overdue" name="Overdue" stackId="a" fill={COLOURS.fail} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'overdue'))} />
+              <Bar dataKey="openNotDue" name="Open, not yet due" stackId="a" fill={COLOURS.soft} isAnimationActive={animate} cursor="pointer" onClick={(entry) => navigate(actionsUrl(monthOf(entry), 'not_yet_due'))} />
             </BarChart>
           </ResponsiveContainer>
         }
@@ -128,16 +156,10 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
               cells: [
                 row.month,
                 row.due,
-                row.closedOnTime,
-                row.closedLate,
-                row.overdue ? (
-                  <Link className="font-bold text-fail underline" to={actionsUrl(true)}>
-                    {row.overdue}
-                  </Link>
-                ) : (
-                  0
-                ),
-                row.openNotDue,
+                countLink(row.closedOnTime, actionsUrl(row.month, 'on_time')),
+                countLink(row.closedLate, actionsUrl(row.month, 'late')),
+                countLink(row.overdue, actionsUrl(row.month, 'overdue'), 'font-bold text-fail underline'),
+                countLink(row.openNotDue, actionsUrl(row.month, 'not_yet_due')),
               ],
             }))}
           />
@@ -151,7 +173,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.meanDaysToClose.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={data.meanDaysToClose.map((row) => ({ ...row, label: classLabel(row.class) }))} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={data.meanDaysToClose.map((row) => ({ ...row, label: classLabel(row.class) }))} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="label" />
               <YAxis />
@@ -192,7 +214,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.failingRules.length === 0}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart layout="vertical" data={data.failingRules} margin={{ top: 8, right: 8, bottom: 8, left: 24 }}>
+            <BarChart accessibilityLayer={false} layout="vertical" data={data.failingRules} margin={{ top: 8, right: 8, bottom: 8, left: 24 }}>
               <CartesianGrid strokeDasharray="3 3" horizontal={false} />
               <XAxis type="number" allowDecimals={false} />
               <YAxis type="category" dataKey="rule" width={140} />
@@ -234,12 +256,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
         empty={data.findingsByArea.every((row) => row.open + row.closed + row.withdrawn === 0)}
         chart={
           <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={data.findingsByArea} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+            <BarChart accessibilityLayer={false} data={data.findingsByArea} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
               <CartesianGrid strokeDasharray="3 3" vertical={false} />
               <XAxis dataKey="areaName" />
               <YAxis allowDecimals={false} />
               <Tooltip />
-              <Legend />
+              <Legend formatter={legendText} />
               {(
                 [
                   ['open', 'Open', COLOURS.copper, 'open'],
@@ -255,7 +277,7 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
                   fill={fill}
                   isAnimationActive={animate}
                   cursor="pointer"
-                  onClick={(entry) => navigate(listUrl('/findings', { state: stateParam(state), areaId: (entry as { payload?: { areaId?: number } }).payload?.areaId }))}
+                  onClick={(entry) => navigate(listUrl('/findings', { state: stateParam(state), ...raised, areaId: (entry as { payload?: { areaId?: number } }).payload?.areaId }))}
                 />
               ))}
             </BarChart>
@@ -268,12 +290,12 @@ export function DashboardCharts({ data, animate = true }: { data: DashboardView;
             rows={data.findingsByArea.map((row) => ({
               key: String(row.areaId),
               cells: [
-                <Link className="text-lagoon underline" to={listUrl('/findings', { areaId: row.areaId })}>
+                <Link className="text-lagoon underline" to={listUrl('/findings', { ...raised, areaId: row.areaId })}>
                   {row.areaName}
                 </Link>,
-                row.open,
-                row.closed,
-                row.withdrawn,
+                countLink(row.open, listUrl('/findings', { state: OPEN_FINDING_STATES, ...raised, areaId: row.areaId })),
+                countLink(row.closed, listUrl('/findings', { state: 'closed', ...raised, areaId: row.areaId })),
+                countLink(row.withdrawn, listUrl('/findings', { state: 'withdrawn', ...raised, areaId: row.areaId })),
               ],
             }))}
           />

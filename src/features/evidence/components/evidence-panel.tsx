@@ -83,7 +83,7 @@ export function EvidencePanel({ recordType, recordId, recordOwnerId = null, read
   const current = files.filter((file) => !file.superseded).length;
 
   return (
-    <section aria-labelledby={`evidence-${recordType}-${recordId}`} className="flex flex-col gap-3">
+    <section id="evidence" aria-labelledby={`evidence-${recordType}-${recordId}`} className="scroll-mt-4 flex flex-col gap-3">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h2 id={`evidence-${recordType}-${recordId}`} className="text-lg font-bold text-ink">
           {title}

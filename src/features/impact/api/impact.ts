@@ -1,7 +1,8 @@
 // Extent of condition and impact worksheets: queries and mutations. Every
 // mutation refreshes the impact views and calls `onChange` so the page can
 // refresh the finding itself (its allowed events depend on the decisions).
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api } from '../../../lib/api-client';
 import type { ExtentRunView, FindingFamilyView } from '../../../../shared/schemas/extent';
 import type { ContainmentDecisionKind, EquipmentImpactView, FindingImpactView } from '../../../../shared/schemas/impact';

@@ -43,6 +43,7 @@ export function ImpactWorksheet({ finding, onChange }: { finding: WorksheetFindi
 
   return (
     <Panel
+      id="impact-worksheet"
       title="Impact on past inspections"
       actions={view.total > 0 ? <CsvExportLink path={`/findings/${finding.id}/impact.csv`} query={{}} label="Worksheet CSV" /> : null}
     >

@@ -50,6 +50,9 @@ const equipmentText = (row: InspectionImportRow) =>
     .map((item) => item.serialNumber)
     .join(', ') || '—';
 
+/** The column a problem names; a problem of the whole row ("(row)") names none. */
+const columnOf = (item: InspectionImportError) => (/^\(.*\)$/.test(item.field) ? null : item.field);
+
 /** Rows drawn at most; rows with problems always show. */
 const PREVIEW_ROWS = 200;
 
@@ -112,12 +115,13 @@ function PreviewTable({ preview }: { preview: InspectionImportPreview }) {
                     <ul>
                       {errors.map((error, index) => (
                         <li key={`e${index}`}>
-                          <strong>{error.field}</strong>: {error.message}
+                          {columnOf(error) ? <><strong>{columnOf(error)}</strong>: </> : null}
+                          {error.message}
                         </li>
                       ))}
                       {warnings.map((warning, index) => (
                         <li key={`w${index}`} className="text-warn">
-                          <strong>Warning, {warning.field}</strong>: {warning.message}
+                          <strong>Warning{columnOf(warning) ? `, ${columnOf(warning)}` : ''}</strong>: {warning.message}
                         </li>
                       ))}
                     </ul>
@@ -142,7 +146,8 @@ function ErrorList({ errors }: { errors: InspectionImportError[] }) {
       <ul className="mt-1 max-h-40 list-disc overflow-auto pl-5">
         {errors.map((error, index) => (
           <li key={index}>
-            Row {error.row}, {error.field}: {error.message}
+            Row {error.row}
+            {columnOf(error) ? `, ${columnOf(error)}` : ''}: {error.message}
           </li>
         ))}
       </ul>
@@ -226,9 +231,11 @@ export function ImportDialog({ open, onClose }: { open: boolean; onClose(): void
             </Button>
             <Button
               onClick={() => file && importer.mutate(file, { onSuccess: () => setStep('done') })}
-              disabled={importer.isPending || Boolean(importErrors)}
+              busy={importer.isPending}
+              busyLabel="Importing…"
+              disabled={Boolean(importErrors)}
             >
-              {importer.isPending ? 'Importing…' : `Import ${plural(rowCount, 'inspection')}`}
+              {`Import ${plural(rowCount, 'inspection')}`}
             </Button>
           </div>
         </div>

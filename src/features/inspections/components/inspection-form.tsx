@@ -204,8 +204,8 @@ export function InspectionForm({
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : item ? 'Save correction' : 'Record inspection'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {item ? 'Save correction' : 'Record inspection'}
         </Button>
       </div>
     </form>

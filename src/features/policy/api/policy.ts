@@ -1,4 +1,5 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api } from '../../../lib/api-client';
 import type { PolicyUpdateInput, PolicyView } from '../../../../shared/schemas/technique-register';
 

@@ -1,4 +1,5 @@
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api } from '../../../lib/api-client';
 import type { ListResponse } from '../../../../shared/schemas/common';
 import type { CertificationCreateInput, CertificationUpdateInput, CertificationView } from '../../../../shared/schemas/certification';

@@ -1,4 +1,5 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api, apiRequest } from '../../../lib/api-client';
 import type { ListResponse } from '../../../../shared/schemas/common';
 import type { TechniqueLinksInput, TechniqueLinksView } from '../../../../shared/schemas/equipment';

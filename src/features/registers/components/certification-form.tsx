@@ -8,7 +8,8 @@ import {
 import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { formErrors } from '../../../lib/field-errors';
 import { usePeople } from '../api/certifications';
 
 export interface CertificationFormValues {
@@ -24,6 +25,21 @@ export interface CertificationFormValues {
   sectors: string;
   notes: string;
 }
+
+/** The form's fields by the paths the server names, with their labels. */
+const CERTIFICATION_FIELDS = {
+  userId: 'Person',
+  method: 'Method',
+  level: 'Level',
+  scheme: 'Scheme',
+  certificateNumber: 'Certificate number',
+  issuedOn: 'Issued',
+  expiresOn: 'Expires',
+  nearVisionExamOn: 'Near-vision exam',
+  colourVisionCheckedOn: 'Colour-vision check',
+  sectors: 'Sectors',
+  notes: 'Notes',
+};
 
 export function CertificationForm({
   certification,
@@ -53,7 +69,7 @@ export function CertificationForm({
     notes: certification?.notes ?? '',
   });
   const apiError = error instanceof ApiError ? error : null;
-  const fieldError = (path: string) => apiError?.fieldErrors.find((detail) => detail.path.startsWith(path))?.message;
+  const fieldError = formErrors(error, CERTIFICATION_FIELDS).at;
   const set = <K extends keyof CertificationFormValues>(key: K, value: CertificationFormValues[K]) =>
     setValues((current) => ({ ...current, [key]: value }));
   const submit = (event: FormEvent) => {
@@ -118,22 +134,17 @@ export function CertificationForm({
       <div className="col-span-2">
         <TextAreaField label="Notes" rows={2} value={values.notes} onChange={(e) => set('notes', e.target.value)} error={fieldError('notes')} />
       </div>
-      {apiError && apiError.fieldErrors.length === 0 && (
+      {apiError && (
         <div className="col-span-2">
-          <ErrorNotice error={apiError} title="Not saved" />
+          <FormErrorNotice error={apiError} fields={CERTIFICATION_FIELDS} />
         </div>
-      )}
-      {apiError && apiError.fieldErrors.length > 0 && (
-        <p className="col-span-2 text-xs font-bold text-fail" role="alert">
-          Some fields need attention: {apiError.fieldErrors.map((d) => `${d.path}: ${d.message}`).join('; ')}
-        </p>
       )}
       <div className="col-span-2 mt-2 flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : certification ? 'Save changes' : 'Record certificate'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {certification ? 'Save changes' : 'Record certificate'}
         </Button>
       </div>
     </form>

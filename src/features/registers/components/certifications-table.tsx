@@ -67,7 +67,7 @@ export function CertificationsTable({ evidencePanel }: { evidencePanel?: (certif
         header: () => <span className="sr-only">Actions</span>,
         cell: ({ row }) =>
           canEdit || evidencePanel ? (
-            <Button variant="ghost" onClick={() => setPending({ kind: 'edit', certification: row.original })} aria-label={`Open ${row.original.certificateNumber}`}>
+            <Button variant="ghost" onClick={() => setPending({ kind: 'edit', certification: row.original })} aria-label={`${canEdit ? 'Edit' : 'Open'} ${row.original.certificateNumber}`}>
               {canEdit ? 'Edit' : 'Open'}
             </Button>
           ) : null,

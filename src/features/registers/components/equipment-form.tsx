@@ -10,7 +10,8 @@ import { FLAW_ORIENTATIONS } from '../../../../shared/schemas/technique';
 import { ApiError } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { formErrors } from '../../../lib/field-errors';
 
 interface NotchRow {
   label: string;
@@ -63,6 +64,21 @@ export function toEquipmentInput(values: EquipmentFormValues) {
   };
 }
 
+/** The form's fields by the paths the server names, with their labels. */
+const EQUIPMENT_FIELDS = {
+  kind: 'Kind',
+  description: 'Description',
+  model: 'Model',
+  serialNumber: 'Serial number',
+  calibratedOn: 'Calibrated',
+  calibrationDueOn: 'Calibration due',
+  status: 'Status',
+  conductivityIacs: 'Conductivity',
+  material: 'Material',
+  notches: 'Notches',
+  notes: 'Notes',
+};
+
 const cellClass = 'w-full rounded border border-ink/25 bg-white px-1.5 py-1 text-sm';
 
 export function EquipmentForm({
@@ -99,7 +115,7 @@ export function EquipmentForm({
     })),
   });
   const apiError = error instanceof ApiError ? error : null;
-  const fieldError = (path: string) => apiError?.fieldErrors.find((detail) => detail.path === path || detail.path.startsWith(`${path}.`))?.message;
+  const fieldError = formErrors(error, EQUIPMENT_FIELDS).at;
   const set = <K extends keyof EquipmentFormValues>(key: K, value: EquipmentFormValues[K]) => setValues((current) => ({ ...current, [key]: value }));
   const setNotch = (index: number, key: keyof NotchRow, value: string) =>
     set(
@@ -217,18 +233,15 @@ export function EquipmentForm({
       </div>
       {apiError && (
         <div className="col-span-2">
-          <ErrorNotice
-            error={apiError.fieldErrors.length ? new Error(apiError.fieldErrors.map((d) => `${d.path}: ${d.message}`).join('; ')) : apiError}
-            title="Not saved"
-          />
+          <FormErrorNotice error={apiError} fields={EQUIPMENT_FIELDS} />
         </div>
       )}
       <div className="col-span-2 mt-2 flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : item ? 'Save changes' : 'Register equipment'}
+        <Button type="submit" busy={pending} busyLabel="Saving…">
+          {item ? 'Save changes' : 'Register equipment'}
         </Button>
       </div>
     </form>

@@ -116,8 +116,8 @@ function LinksEditor({ techniqueId }: { techniqueId: number }) {
       </div>
       {save.error ? <ErrorNotice error={save.error} title="Not saved" /> : null}
       <div className="flex gap-2">
-        <Button type="submit" disabled={save.isPending}>
-          {save.isPending ? 'Saving…' : 'Save links'}
+        <Button type="submit" busy={save.isPending} busyLabel="Saving…">
+          {'Save links'}
         </Button>
         <Button variant="secondary" onClick={() => setEditing(false)}>
           Cancel

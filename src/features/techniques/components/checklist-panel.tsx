@@ -48,13 +48,31 @@ function ResultRow({ result, technique }: { result: RuleResult; technique?: Tech
   );
 }
 
+/** The checks an evaluation without register facts cannot make (the engine reports nothing for them then). */
+const REGISTER_RULES = ['personnel', 'equipment'] as const;
+
+/** True when the people and equipment checks were made (the evaluation had the register facts). */
+export function registerChecksMade(output: ChecklistOutput): boolean {
+  return output.results.some((result) => (REGISTER_RULES as readonly string[]).includes(result.rule));
+}
+
 export function ChecklistSummaryLine({ output }: { output: ChecklistOutput }) {
   const { summary } = output;
+  const complete = registerChecksMade(output);
   return (
-    <p className="text-sm text-ink-soft" aria-live="polite">
-      {summary.fail} {STATUS_TEXT.fail.label.toLowerCase()} · {summary.warn} {summary.warn === 1 ? 'warning' : 'warnings'} · {summary.pass}{' '}
-      {STATUS_TEXT.pass.label.toLowerCase()} · {summary.not_applicable} not applicable
-    </p>
+    <div aria-live="polite">
+      <p className="text-sm text-ink-soft">
+        {summary.fail} {STATUS_TEXT.fail.label.toLowerCase()} · {summary.warn} {summary.warn === 1 ? 'warning' : 'warnings'} · {summary.pass}{' '}
+        {STATUS_TEXT.pass.label.toLowerCase()} · {summary.not_applicable} not applicable
+        {complete ? '' : ' so far'}
+      </p>
+      {!complete && (
+        <p className="mt-1 rounded border border-warn/30 bg-amber-50 px-2 py-1 text-xs text-ink" data-testid="register-checks-pending">
+          People and equipment checks run once the technique is linked to the registers: who may perform and approve it, and the instrument,
+          probe and reference standard it names. Until then this list is not complete.
+        </p>
+      )}
+    </div>
   );
 }
 

@@ -49,8 +49,8 @@ function MaterialForm({ material, onDone }: { material?: MaterialView; onDone():
         <Button variant="secondary" onClick={onDone}>
           Cancel
         </Button>
-        <Button type="submit" disabled={save.isPending}>
-          {save.isPending ? 'Saving…' : material ? 'Save changes' : 'Add material'}
+        <Button type="submit" busy={save.isPending} busyLabel="Saving…">
+          {material ? 'Save changes' : 'Add material'}
         </Button>
       </div>
     </form>

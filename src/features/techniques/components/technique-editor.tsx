@@ -220,8 +220,8 @@ export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving,
           <Button variant="secondary" onClick={exportFile}>
             Export JSON
           </Button>
-          <Button type="submit" disabled={saving}>
-            {saving ? 'Saving…' : mode === 'create' ? 'Create draft' : dirty ? 'Save draft' : 'Saved'}
+          <Button type="submit" busy={saving} busyLabel="Saving…">
+            {mode === 'create' ? 'Create draft' : dirty ? 'Save draft' : 'Saved'}
           </Button>
           {renderActions?.({ dirty })}
         </div>
@@ -255,7 +255,10 @@ export function TechniqueEditor({ mode, initial, initialAreaId, heading, saving,
           <FlawFields form={form} />
           <ReferenceFields form={form} />
         </div>
-        <div className="min-w-0">{policy.isLoading ? <Loading what="Loading the organisation's policy" /> : <LivePanel form={form} policy={policy.data?.policy} />}</div>
+        {/* The live checklist stays in view while the form scrolls; on a narrow screen it follows the form. */}
+        <div className="min-w-0 lg:sticky lg:top-2 lg:max-h-[calc(100vh-1rem)] lg:self-start lg:overflow-y-auto" data-testid="live-checklist">
+          {policy.isLoading ? <Loading what="Loading the organisation's policy" /> : <LivePanel form={form} policy={policy.data?.policy} />}
+        </div>
       </div>
 
       <ConfirmDialog

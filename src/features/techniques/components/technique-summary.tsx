@@ -1,6 +1,6 @@
 // A revision's content, read-only, in the words of the trade.
 import type { Technique } from '../../../../shared/schemas/technique';
-import { COIL_TYPE_LABELS, LOCATION_LABELS, ORIENTATION_LABELS, PART_FORM_LABELS, formatHz } from './labels';
+import { COIL_TYPE_LABELS, LOCATION_LABELS, ORIENTATION_LABELS, PART_FORM_LABELS, formatHz, orientationWord } from './labels';
 
 const mm = (value: number | undefined) => (value === undefined ? '—' : `${value} mm`);
 
@@ -49,7 +49,7 @@ export function TechniqueSummary({ technique }: { technique: Technique }) {
           {reference.notches.length === 0
             ? 'no notches'
             : reference.notches
-                .map((notch) => `${ORIENTATION_LABELS[notch.orientation].toLowerCase()} notch ${notch.depthMm} × ${notch.lengthMm} mm${notch.edgeDistanceMm !== undefined ? ` at ${notch.edgeDistanceMm} mm from the edge` : ''}`)
+                .map((notch) => `${orientationWord(notch.orientation).toLowerCase()} notch ${notch.depthMm} × ${notch.lengthMm} mm${notch.edgeDistanceMm !== undefined ? ` at ${notch.edgeDistanceMm} mm from the edge` : ''}`)
                 .join('; ')}
         </Row>
       </dl>

@@ -1,6 +1,7 @@
 // Queries and mutations of the workflow records. Every mutation returns the
 // record as the server now sees it and invalidates the lists it may change.
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '../../../lib/single-flight-mutation';
 import { api } from '../../../lib/api-client';
 import type { ListResponse } from '../../../../shared/schemas/common';
 import type {
@@ -70,11 +71,36 @@ export const usePeopleWithRole = (role: string) =>
     staleTime: 60_000,
   });
 
+interface TechniqueListRow {
+  id: number;
+  code: string;
+  title: string;
+  /** The latest revision and its state; `approvedRevision` is the one in force when the latest is not it. */
+  revision: string;
+  state: string;
+  approvedRevision: string | null;
+  areaName: string | null;
+}
+
+/** The revision in force of a register row: the latest when approved, else the approved one behind a draft; none when only drafts exist. */
+export function revisionInForce(row: Pick<TechniqueListRow, 'revision' | 'state' | 'approvedRevision'>): string | null {
+  if (row.state === 'approved') return row.revision;
+  return row.approvedRevision;
+}
+
+/** Techniques an audit may cover: those with an approved revision in force, each with that revision. */
 export const useTechniqueOptions = () =>
   useQuery({
     queryKey: ['techniques', { pageSize: 200 }],
-    queryFn: () => api.get<ListResponse<{ id: number; code: string; title: string; revision: string; areaName: string | null }>>('/techniques', { pageSize: 200, sort: 'code' }),
+    queryFn: () => api.get<ListResponse<TechniqueListRow>>('/techniques', { pageSize: 200, sort: 'code' }),
     staleTime: 60_000,
+    select: (data) => ({
+      ...data,
+      items: data.items.flatMap((row) => {
+        const inForce = revisionInForce(row);
+        return inForce ? [{ ...row, revision: inForce }] : [];
+      }),
+    }),
   });
 
 function useInvalidateWorkflow() {

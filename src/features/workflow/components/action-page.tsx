@@ -5,6 +5,7 @@ import { ErrorNotice, Loading, PageHeader } from '../../../components/ui/states'
 import { RecordExportLinks } from '../../../components/ui/export-links';
 import { useAction } from '../api/workflow';
 import { EventActions } from './event-actions';
+import { NextStepPanel, actionNextStep } from './next-step';
 import { Facts, Panel } from './record-layout';
 import { RecordTimeline } from './record-timeline';
 import { SignatureBlock } from './signature-block';
@@ -37,13 +38,10 @@ export function ActionPage({ id, evidence }: { id: number; evidence?: (action: A
       <PageHeader title={`${a.number}${a.finding ? ` for ${a.finding.number}` : ''}`}>
         <StateBadge state={a.state} />
       </PageHeader>
-      <div className="flex flex-wrap items-start justify-between gap-2">
-        <EventActions kind="action" record={a} />
+      <NextStepPanel next={actionNextStep(a)} state={a.state} canAct={a.allowedEvents.length > 0} actions={<EventActions kind="action" record={a} />} />
+      <div className="flex flex-wrap justify-end gap-2">
         <RecordExportLinks kind="action" id={a.id} />
       </div>
-      {a.state === 'in_progress' && a.evidenceCount === 0 && (
-        <p className="rounded-md border border-warn/40 bg-warn/10 px-3 py-2 text-sm">Attach at least one evidence file before submitting.</p>
-      )}
       <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-4">
           <Panel title="Corrective action">

@@ -9,6 +9,7 @@ import { RecordExportLinks } from '../../../components/ui/export-links';
 import { useAudit, useRunChecklist } from '../api/workflow';
 import { ChecklistResults } from './checklist-results';
 import { EventActions } from './event-actions';
+import { NextStepPanel, auditNextStep } from './next-step';
 import { Facts, Panel } from './record-layout';
 import { RecordTimeline } from './record-timeline';
 import { SignatureBlock } from './signature-block';
@@ -29,9 +30,9 @@ export function AuditPage({ id, evidence }: { id: number; evidence?: (audit: Aud
       <PageHeader title={a.title}>
         <StateBadge state={a.state} />
       </PageHeader>
+      <NextStepPanel next={auditNextStep(a)} state={a.state} canAct={a.allowedEvents.length > 0} actions={<EventActions kind="audit" record={a} />} />
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div className="flex flex-wrap gap-2">
-        <EventActions kind="audit" record={a} />
         {a.canRaiseFinding && (
           <Button variant="secondary" onClick={() => setRaising(true)}>
             Raise a finding by hand
@@ -90,7 +91,7 @@ export function AuditPage({ id, evidence }: { id: number; evidence?: (audit: Aud
           {evidence ? evidence(a) : null}
         </div>
         <div className="flex flex-col gap-4">
-          <Panel title="Findings">
+          <Panel title="Findings" id="audit-findings">
             {a.findings.length ? (
               <ul className="flex flex-col gap-2 text-sm">
                 {a.findings.map((finding) => (

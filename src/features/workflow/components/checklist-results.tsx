@@ -84,6 +84,8 @@ export function ChecklistResults({ auditId, run, editable, canRaise }: { auditId
                   variant="secondary"
                   className="ml-auto"
                   disabled={raise.isPending}
+                  busy={raise.isPending && raise.variables?.resultIndex === index}
+                  busyLabel="Raising…"
                   onClick={() => raise.mutate({ checklistRunId: run.id, resultIndex: index }, { onSuccess: (finding) => navigate(`/findings/${finding.id}`) })}
                 >
                   Raise a finding

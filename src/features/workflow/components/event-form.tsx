@@ -5,8 +5,8 @@ import { useState, type FormEvent } from 'react';
 import { recordMachines, FINDING_CLASSES, ROOT_CAUSE_METHODS, type RecordKind } from '../../../../machines';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
-import { ApiError } from '../../../lib/api-client';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { formErrors } from '../../../lib/field-errors';
 import { CLASS_LABELS, METHOD_LABELS, eventLabel } from './labels';
 
 type Payload = Record<string, unknown>;
@@ -28,8 +28,22 @@ const CONFIRM_TEXT: Record<string, string> = {
   APPROVE_EXTENSION: 'The due date moves to the requested date.',
 };
 
+/** Every field an event form may show, by the path the server names. */
+const EVENT_FIELDS = {
+  note: 'Note',
+  reason: 'Reason',
+  class: 'Class',
+  method: 'Method',
+  rootCause: 'Root cause analysis',
+  plan: 'Plan',
+  dueDate: 'New due date',
+  summary: 'Summary',
+  password: 'Password',
+  description: 'What was done at once',
+};
+
 function fieldError(error: unknown, path: string): string | undefined {
-  return error instanceof ApiError ? error.fieldErrors.find((detail) => detail.path === path || detail.path.startsWith(`${path}.`))?.message : undefined;
+  return formErrors(error, EVENT_FIELDS).at(path);
 }
 
 export function EventForm({
@@ -133,7 +147,7 @@ export function EventForm({
   } else if (type === 'SUBMIT_PLAN') {
     body = (
       <>
-        <SelectField label="Root-cause method" value={method} onChange={(e) => setMethod(e.target.value)}>
+        <SelectField label="Root-cause method" value={method} onChange={(e) => setMethod(e.target.value)} error={fieldError(error, 'method')}>
           {ROOT_CAUSE_METHODS.map((value) => (
             <option key={value} value={value}>
               {METHOD_LABELS[value]}
@@ -150,6 +164,7 @@ export function EventForm({
                 required
                 value={item.description}
                 onChange={(e) => setPlan(plan.map((p, i) => (i === index ? { ...p, description: e.target.value } : p)))}
+                error={fieldError(error, `plan.${index}.description`)}
               />
               <TextField
                 label="Due"
@@ -159,6 +174,7 @@ export function EventForm({
                 hint={planDueBy ? `by ${planDueBy}` : undefined}
                 value={item.dueDate}
                 onChange={(e) => setPlan(plan.map((p, i) => (i === index ? { ...p, dueDate: e.target.value } : p)))}
+                error={fieldError(error, `plan.${index}.dueDate`)}
               />
               <Button variant="ghost" disabled={plan.length === 1} onClick={() => setPlan(plan.filter((_, i) => i !== index))} aria-label={`Remove item ${index + 1}`}>
                 ✕
@@ -187,13 +203,13 @@ export function EventForm({
   return (
     <form onSubmit={submit} className="flex flex-col gap-3">
       {body}
-      {error ? <ErrorNotice error={error} title="Not done" /> : null}
+      <FormErrorNotice error={error} fields={EVENT_FIELDS} title="Not done" />
       <div className="mt-2 flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>
           Cancel
         </Button>
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Working…' : meaning ? `Sign: ${eventLabel(type)}` : eventLabel(type)}
+        <Button type="submit" busy={pending} busyLabel="Working…">
+          {meaning ? `Sign: ${eventLabel(type)}` : eventLabel(type)}
         </Button>
       </div>
     </form>

@@ -8,6 +8,7 @@ import { RecordExportLinks } from '../../../components/ui/export-links';
 import { useFinding } from '../api/workflow';
 import { AssignActionForm } from './assign-action-form';
 import { EventActions } from './event-actions';
+import { NextStepPanel, findingNextStep } from './next-step';
 import { Facts, Panel } from './record-layout';
 import { RecordTimeline } from './record-timeline';
 import { SignatureBlock } from './signature-block';
@@ -39,9 +40,18 @@ export function FindingPage({
         <ClassBadge value={f.class} />
         <StateBadge state={f.state} />
       </PageHeader>
-      <div className="flex flex-wrap gap-2">
-        <EventActions kind="finding" record={f} />
-        {f.canAssignAction && <Button onClick={() => setAssigning(true)}>Assign corrective action</Button>}
+      <NextStepPanel
+        next={findingNextStep(f)}
+        state={f.state}
+        canAct={f.allowedEvents.length > 0 || f.canAssignAction}
+        actions={
+          <div className="flex flex-wrap gap-2">
+            <EventActions kind="finding" record={f} />
+            {f.canAssignAction && <Button onClick={() => setAssigning(true)}>Assign corrective action</Button>}
+          </div>
+        }
+      />
+      <div className="flex flex-wrap justify-end gap-2">
         <RecordExportLinks kind="finding" id={f.id} />
       </div>
       <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">

@@ -2,9 +2,19 @@ import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
-import { ApiError } from '../../../lib/api-client';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { SENT_FROM_DIALOG } from '../../../components/ui/dialog';
+import { formErrors } from '../../../lib/field-errors';
 import { useAreaOptions, useCreateAudit, useTechniqueOptions } from '../api/workflow';
+
+const PLAN_FIELDS = {
+  title: 'Title',
+  criteria: 'Criteria',
+  areaId: 'Audited area',
+  plannedStart: 'Planned start',
+  plannedEnd: 'Planned end',
+  techniques: 'Techniques in scope',
+};
 
 /** Plans an audit led by the signed-in auditor: area, dates, criteria and the techniques in scope. */
 export function PlanAuditForm({ leadAuditorId, leadAreaId, onCancel }: { leadAuditorId: number; leadAreaId: number | null; onCancel(): void }) {
@@ -14,14 +24,16 @@ export function PlanAuditForm({ leadAuditorId, leadAreaId, onCancel }: { leadAud
   const navigate = useNavigate();
   const [form, setForm] = useState({ title: '', criteria: '', areaId: '', plannedStart: '', plannedEnd: '' });
   const [scope, setScope] = useState<number[]>([]);
-  const error = (path: string) => (create.error instanceof ApiError ? create.error.fieldErrors.find((d) => d.path.startsWith(path))?.message : undefined);
+  const error = formErrors(create.error, PLAN_FIELDS).at;
   const set = (key: keyof typeof form) => (e: { target: { value: string } }) => setForm({ ...form, [key]: e.target.value });
 
+  // The revision shown is the one sent: the server refuses it if it is no longer in force.
+  const revisionOf = (techniqueId: number) => techniques.data?.items.find((technique) => technique.id === techniqueId)?.revision;
   const submit = (event: FormEvent) => {
     event.preventDefault();
     create.mutate(
-      { ...form, areaId: Number(form.areaId), leadAuditorId, techniques: scope.map((techniqueId) => ({ techniqueId })) },
-      { onSuccess: (audit) => navigate(`/audits/${audit.id}`) },
+      { ...form, areaId: Number(form.areaId), leadAuditorId, techniques: scope.map((techniqueId) => ({ techniqueId, revision: revisionOf(techniqueId) })) },
+      { onSuccess: (audit) => navigate(`/audits/${audit.id}`, { state: SENT_FROM_DIALOG }) },
     );
   };
 
@@ -49,13 +61,14 @@ export function PlanAuditForm({ leadAuditorId, leadAreaId, onCancel }: { leadAud
             {technique.code} rev {technique.revision} — {technique.title}
           </label>
         ))}
-        {techniques.data && !techniques.data.items.length && <p className="text-sm text-ink-soft">The technique register is empty.</p>}
+        {techniques.data && !techniques.data.items.length && <p className="text-sm text-ink-soft">No technique has an approved revision in force.</p>}
+        <p className="text-xs text-ink-soft">Only approved revisions in force are offered; a technique with only a draft is audited once approved.</p>
         {error('techniques') && <p className="text-xs font-bold text-fail">{error('techniques')}</p>}
       </fieldset>
-      {create.error ? <ErrorNotice error={create.error} title="The audit was not planned" /> : null}
+      <FormErrorNotice error={create.error} fields={PLAN_FIELDS} title="The audit was not planned" />
       <div className="flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        <Button type="submit" disabled={create.isPending || !scope.length}>{create.isPending ? 'Planning…' : 'Plan the audit'}</Button>
+        <Button type="submit" busy={create.isPending} busyLabel="Planning…" disabled={!scope.length}>Plan the audit</Button>
       </div>
     </form>
   );

@@ -2,9 +2,18 @@ import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
-import { ErrorNotice } from '../../../components/ui/states';
-import { ApiError } from '../../../lib/api-client';
+import { FormErrorNotice } from '../../../components/ui/form-error';
+import { SENT_FROM_DIALOG } from '../../../components/ui/dialog';
+import { formErrors } from '../../../lib/field-errors';
 import { useRaiseFinding } from '../api/workflow';
+
+const RAISE_FIELDS = {
+  title: 'Title',
+  rule: 'Rule or clause not met',
+  requirement: 'Requirement',
+  objectiveEvidence: 'Objective evidence',
+  techniqueCode: 'Technique',
+};
 
 /** A finding written by the auditor (a clause of the criteria not met), not from a checklist result. */
 export function RaiseFindingForm({ auditId, techniqueCodes, onCancel }: { auditId: number; techniqueCodes: string[]; onCancel(): void }) {
@@ -12,11 +21,11 @@ export function RaiseFindingForm({ auditId, techniqueCodes, onCancel }: { auditI
   const navigate = useNavigate();
   const [form, setForm] = useState({ title: '', rule: '', requirement: '', objectiveEvidence: '', techniqueCode: '' });
   const set = (key: keyof typeof form) => (e: { target: { value: string } }) => setForm({ ...form, [key]: e.target.value });
-  const error = (path: string) => (raise.error instanceof ApiError ? raise.error.fieldErrors.find((d) => d.path === path)?.message : undefined);
+  const error = formErrors(raise.error, RAISE_FIELDS).at;
   const submit = (event: FormEvent) => {
     event.preventDefault();
     const { techniqueCode, ...rest } = form;
-    raise.mutate({ ...rest, ...(techniqueCode ? { techniqueCode } : {}) }, { onSuccess: (finding) => navigate(`/findings/${finding.id}`) });
+    raise.mutate({ ...rest, ...(techniqueCode ? { techniqueCode } : {}) }, { onSuccess: (finding) => navigate(`/findings/${finding.id}`, { state: SENT_FROM_DIALOG }) });
   };
   return (
     <form onSubmit={submit} className="flex flex-col gap-3">
@@ -30,10 +39,10 @@ export function RaiseFindingForm({ auditId, techniqueCodes, onCancel }: { auditI
           <option key={code} value={code}>{code}</option>
         ))}
       </SelectField>
-      {raise.error ? <ErrorNotice error={raise.error} title="The finding was not raised" /> : null}
+      <FormErrorNotice error={raise.error} fields={RAISE_FIELDS} title="The finding was not raised" />
       <div className="flex justify-end gap-2">
         <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        <Button type="submit" disabled={raise.isPending}>{raise.isPending ? 'Raising…' : 'Raise the finding'}</Button>
+        <Button type="submit" busy={raise.isPending} busyLabel="Raising…">Raise the finding</Button>
       </div>
     </form>
   );

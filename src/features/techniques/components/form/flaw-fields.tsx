@@ -1,7 +1,7 @@
 import { useFieldArray, useWatch } from 'react-hook-form';
 import { FLAW_LOCATIONS, FLAW_ORIENTATIONS } from '../../../../../shared/schemas/technique';
 import { Button } from '../../../../components/ui/button';
-import { LOCATION_LABELS, ORIENTATION_LABELS } from '../labels';
+import { LOCATION_LABELS, ORIENTATION_CHOICES, ORIENTATION_HELP } from '../labels';
 import { ChoiceField, InputField, Section, numberOptions, useFieldError, type TechniqueFormApi } from './form-kit';
 
 function FlawRow({ form, index, onRemove, canRemove }: { form: TechniqueFormApi; index: number; onRemove(): void; canRemove: boolean }) {
@@ -28,10 +28,10 @@ function FlawRow({ form, index, onRemove, canRemove }: { form: TechniqueFormApi;
       </div>
       <div className="grid grid-cols-2 gap-3">
         <InputField label="Flaw identifier" {...register(`flaws.${index}.id`)} error={errors.id} hint="Short and unique, e.g. bore-crack" />
-        <ChoiceField label="Orientation" {...register(`flaws.${index}.orientation`)} error={errors.orientation}>
+        <ChoiceField label="Orientation" {...register(`flaws.${index}.orientation`)} error={errors.orientation} hint={ORIENTATION_HELP}>
           {FLAW_ORIENTATIONS.map((value) => (
             <option key={value} value={value}>
-              {ORIENTATION_LABELS[value]}
+              {ORIENTATION_CHOICES[value]}
             </option>
           ))}
         </ChoiceField>

@@ -4,6 +4,7 @@
 import { useId, type ComponentProps, type ReactNode } from 'react';
 import { get, useFormState, type UseFormReturn } from 'react-hook-form';
 import type { Technique, TechniqueInput } from '../../../../../shared/schemas/technique';
+import { messageAtField } from '../../../../lib/field-errors';
 
 export type TechniqueFormApi = UseFormReturn<TechniqueInput, unknown, Technique>;
 
@@ -21,7 +22,7 @@ export const numberOptions = { setValueAs: toNumber } as const;
 export function firstMessage(error: unknown): string | undefined {
   if (!error || typeof error !== 'object') return undefined;
   const record = error as Record<string, unknown>;
-  if (typeof record.message === 'string' && record.message) return record.message;
+  if (typeof record.message === 'string' && record.message) return messageAtField(record.message);
   for (const value of Object.values(record)) {
     if (value && typeof value === 'object' && value !== record.ref) {
       const nested = firstMessage(value);

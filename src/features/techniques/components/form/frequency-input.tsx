@@ -5,15 +5,20 @@ import { useEffect, useState } from 'react';
 import { useController } from 'react-hook-form';
 import { InputField, firstMessage, type TechniqueFormApi } from './form-kit';
 
-const MULTIPLIERS: Record<string, number> = { '': 1, hz: 1, k: 1e3, khz: 1e3, m: 1e6, mhz: 1e6 };
+// Every unit a person may type is read, even one far out of range ("1 THz"), so
+// that the schema can say "must be at most 100 MHz" rather than "not a number".
+const MULTIPLIERS: Record<string, number> = { '': 1, hz: 1, k: 1e3, khz: 1e3, m: 1e6, mhz: 1e6, g: 1e9, ghz: 1e9, t: 1e12, thz: 1e12 };
+
+/** A signed decimal with an optional exponent ("-500", "1e12", "2.5E3"), then a unit. */
+const FREQUENCY = /^([+-]?\d+(?:[.]\d+)?(?:e[+-]?\d+)?)\s*([a-z]*)$/i;
 
 export function parseFrequencies(text: string): number[] {
   return text
-    .split(/[,;]+|\s+(?=\d)/)
+    .split(/[,;]+|\s+(?=[+-]?\d)/)
     .map((part) => part.trim())
     .filter(Boolean)
     .map((part) => {
-      const match = /^(\d+(?:[.]\d+)?)\s*([a-zA-Z]*)$/.exec(part.replace(',', '.'));
+      const match = FREQUENCY.exec(part);
       const multiplier = match ? MULTIPLIERS[match[2].toLowerCase()] : undefined;
       return match && multiplier !== undefined ? Number(match[1]) * multiplier : Number.NaN;
     });
@@ -28,6 +33,16 @@ function exactHz(value: number): string {
 
 export function formatFrequencies(values: unknown): string {
   return Array.isArray(values) ? values.filter((value) => Number.isFinite(value)).map((value) => exactHz(value)).join(', ') : '';
+}
+
+/** Text that is not a number with a unit is said as such, not as "must be a finite number". */
+export function unreadable(text: string): string | undefined {
+  const parts = text.split(/[,;]+|\s+(?=[+-]?\d)/).map((part) => part.trim()).filter(Boolean);
+  const bad = parts.find((part) => {
+    const match = FREQUENCY.exec(part);
+    return !match || MULTIPLIERS[match[2].toLowerCase()] === undefined;
+  });
+  return bad === undefined ? undefined : `“${bad}” is not a frequency: enter a number in Hz, kHz or MHz (e.g. 40 kHz)`;
 }
 
 export function FrequencyInput({ form, index }: { form: TechniqueFormApi; index: number }) {
@@ -56,7 +71,7 @@ export function FrequencyInput({ form, index }: { form: TechniqueFormApi; index:
         field.onChange(parseFrequencies(event.target.value));
       }}
       hint="Separate with commas; Hz, kHz or MHz (e.g. 40 kHz, 160 kHz)"
-      error={firstMessage(fieldState.error)}
+      error={unreadable(text) ?? firstMessage(fieldState.error)}
     />
   );
 }

@@ -1,7 +1,7 @@
 import { useFieldArray, useWatch } from 'react-hook-form';
 import { FLAW_ORIENTATIONS } from '../../../../../shared/schemas/technique';
 import { Button } from '../../../../components/ui/button';
-import { ORIENTATION_LABELS } from '../labels';
+import { ORIENTATION_CHOICES } from '../labels';
 import { ChoiceField, InputField, Section, numberOptions, useFieldError, type TechniqueFormApi } from './form-kit';
 
 function NotchRow({ form, index, onRemove }: { form: TechniqueFormApi; index: number; onRemove(): void }) {
@@ -21,7 +21,7 @@ function NotchRow({ form, index, onRemove }: { form: TechniqueFormApi; index: nu
         <ChoiceField label="Orientation" {...register(`reference.notches.${index}.orientation`)} error={errors.orientation}>
           {FLAW_ORIENTATIONS.map((value) => (
             <option key={value} value={value}>
-              {ORIENTATION_LABELS[value]}
+              {ORIENTATION_CHOICES[value]}
             </option>
           ))}
         </ChoiceField>
