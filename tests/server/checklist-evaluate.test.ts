@@ -66,7 +66,7 @@ describe('evaluating any technique', () => {
     expect(tube.body.verdict).toBe('does-not-conform');
     const circ = tube.body.results.find((result: { rule: string; flaw?: string }) => result.rule === 'orientation-coverage' && result.flaw === 'circ-crack');
     expect(circ.status).toBe('fail');
-    // δ = 660.9/√(40000 × 28) ≈ 0.62 mm (DOMAIN.md engineering form; the examples README).
+    // δ = 660.9/√(40000 × 28) ≈ 0.62 mm (docs/domain.md engineering form; the examples README).
     expect(tube.body.values.standardDepthMm[0][0]).toBeCloseTo(0.6245, 3);
   });
 });

@@ -75,7 +75,7 @@ describe('personnel certifications', () => {
     expect(trail[1].changes).toMatchObject({ level: { before: 2, after: 3 } });
   });
 
-  // The boundaries of DOMAIN.md rule 8 as Whorl reads them: a certificate is valid through its expiry day;
+  // The boundaries of docs/domain.md rule 8 as Whorl reads them: a certificate is valid through its expiry day;
   // warnings at 60 and 30 days (Whorl product defaults); a near-vision exam counts for 12 calendar months
   // (ISO 9712, annual near-vision check; the policy setting nearVisionExamMonths).
   it('when the clock moves across the 60-day, 30-day and expiry boundaries, then the flags change on exactly those days', async () => {

@@ -83,7 +83,7 @@ describe('reports and exports', () => {
     expect(auditText).toContain(`Signed by ${issue!.printedName}`);
     expect(auditText).toContain(`Meaning: ${issue!.meaning}`);
     expect(auditText).toContain(`Date and time: ${utcMinute(issue!.signedAt.toISOString())}`);
-    // The bobbin technique at 40 kHz and 160 kHz in 70/30 brass (28 %IACS): δ from 660.9/√(f·μr·%IACS) (DOMAIN.md) = 0.624 mm and 0.312 mm.
+    // The bobbin technique at 40 kHz and 160 kHz in 70/30 brass (28 %IACS): δ from 660.9/√(f·μr·%IACS) (docs/domain.md) = 0.624 mm and 0.312 mm.
     expect(auditText).toMatch(/at 40 kHz: δ = 0\.62\d* mm, 3δ = 1\.87\d* mm/);
     expect(auditText).toMatch(/at 160 kHz: δ = 0\.31\d* mm/);
     expect(auditText).toContain('σ = 16.24 MS/m');

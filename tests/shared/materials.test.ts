@@ -3,8 +3,8 @@ import { MATERIALS } from '../../shared/domain/materials';
 import { MaterialSchema } from '../../shared/schemas/technique';
 
 describe('materials library', () => {
-  it('holds the conductivity table of DOMAIN.md', () => {
-    // %IACS from a published ET programmed-instruction text (Ti-6Al-4V from memory), as DOMAIN.md lists them.
+  it('holds the conductivity table of docs/domain.md', () => {
+    // %IACS from a published ET programmed-instruction text (Ti-6Al-4V from memory), as docs/domain.md lists them.
     const table: Record<string, number> = {
       'copper-annealed': 100,
       'aluminium-pure': 61,

@@ -30,7 +30,7 @@ describe('conductivity and resistivity', () => {
   it('converts %IACS to MS/m with 100 %IACS = 58.0 MS/m', () => {
     // ASTM E1004 §1.4: 100 %IACS = 58.0 MS/m at 20 °C.
     expect(conductivityMsPerMFromIacs(100)).toBeCloseTo(58.0, 10);
-    // 2024-T3 at 30 %IACS (DOMAIN.md alloy table, from a published ET programmed-instruction text) → 17.4 MS/m.
+    // 2024-T3 at 30 %IACS (docs/domain.md alloy table, from a published ET programmed-instruction text) → 17.4 MS/m.
     expect(conductivityMsPerMFromIacs(30)).toBeCloseTo(17.4, 10);
     expect(iacsFromConductivityMsPerM(58)).toBeCloseTo(100, 10);
   });
@@ -46,9 +46,9 @@ describe('conductivity and resistivity', () => {
 describe('standard depth of penetration', () => {
   it.each([
     // [what, %IACS, f Hz, δ mm, source]
-    ['copper at 60 Hz', 100, 60, 8.53], // DOMAIN.md check value; published skin-depth tables give ≈ 8.5 mm
-    ['copper at 1 kHz', 100, 1_000, 2.09], // DOMAIN.md check value, from the formula
-    ['2024-T3 at 100 kHz', 30, 100_000, 0.382], // DOMAIN.md check value, from the formula
+    ['copper at 60 Hz', 100, 60, 8.53], // docs/domain.md check value; published skin-depth tables give ≈ 8.5 mm
+    ['copper at 1 kHz', 100, 1_000, 2.09], // docs/domain.md check value, from the formula
+    ['2024-T3 at 100 kHz', 30, 100_000, 0.382], // docs/domain.md check value, from the formula
   ])('%s: δ = %s', (_what, iacs, frequencyHz, expectedMm) => {
     expect(standardDepthMm(frequencyHz, iacs)).toBeCloseTo(expectedMm, 2);
     // The same to about 1 part in 10⁹ from mathjs's μ0 (4π×10⁻⁷ and CODATA μ0 differ by 5.5×10⁻¹⁰).
@@ -63,7 +63,7 @@ describe('standard depth of penetration', () => {
   });
 
   it('agrees with the engineering forms 660.9/√(f·μr·%IACS) and 50.3·√(ρ/(f·μr))', () => {
-    // Engineering forms from standard ET formula sheets (DOMAIN.md "Physics").
+    // Engineering forms from standard ET formula sheets (docs/domain.md "Physics").
     for (const [iacs, f, mu] of [
       [100, 60, 1],
       [30, 100_000, 1],
@@ -78,7 +78,7 @@ describe('standard depth of penetration', () => {
   });
 
   it('gives the same δ for the same σ·f: Ti-6Al-4V (≈1 %IACS) at 100 kHz ≈ copper at 1 kHz', () => {
-    // DOMAIN.md: same σ·f gives the same δ; Ti-6Al-4V ≈ 1.0 %IACS is from memory.
+    // docs/domain.md: same σ·f gives the same δ; Ti-6Al-4V ≈ 1.0 %IACS is from memory.
     expect(standardDepthMm(100_000, 1.0)).toBeCloseTo(standardDepthMm(1_000, 100), 10);
   });
 
@@ -100,7 +100,7 @@ describe('standard depth of penetration', () => {
 
 describe('density and phase with depth', () => {
   it.each([
-    // e^(−x/δ): 36.8 % at 1δ, 13.5 % at 2δ, 5.0 % at 3δ (DOMAIN.md; standard ET formula sheets).
+    // e^(−x/δ): 36.8 % at 1δ, 13.5 % at 2δ, 5.0 % at 3δ (docs/domain.md; standard ET formula sheets).
     [1, 0.368],
     [2, 0.135],
     [3, 0.05],
@@ -109,7 +109,7 @@ describe('density and phase with depth', () => {
   });
 
   it('lags 1 rad = 57.3° per standard depth', () => {
-    // θ = x/δ radians, 57.3° per δ (DOMAIN.md; standard ET formula sheets).
+    // θ = x/δ radians, 57.3° per δ (docs/domain.md; standard ET formula sheets).
     expect(phaseLagRad(0.5, 0.5)).toBeCloseTo(1, 12);
     expect(phaseLagDeg(0.5, 0.5)).toBeCloseTo(57.3, 1);
     expect(phaseLagDeg(3, 1)).toBeCloseTo(171.9, 1);
@@ -124,7 +124,7 @@ describe('density and phase with depth', () => {
 
 describe('limit frequency', () => {
   it('of a copper rod of 1 cm is 87.3 Hz and of a 2024 bar of 2 cm is 72.8 Hz', () => {
-    // DOMAIN.md check values for f_g = 5066/(σ[MS/m]·μr·d[cm]²) (attributed to Förster's work).
+    // docs/domain.md check values for f_g = 5066/(σ[MS/m]·μr·d[cm]²) (attributed to Förster's work).
     expect(limitFrequencyHz(10, 100)).toBeCloseTo(87.3, 1);
     expect(limitFrequencyHz(20, 30)).toBeCloseTo(72.8, 1);
   });
@@ -154,7 +154,7 @@ describe('fill factor', () => {
   });
 
   it('of an encircling coil is (d_part/D_coil)²', () => {
-    // η = (d/D)² [pub, DOMAIN.md]: a 9 mm bar in a 10 mm coil fills 0.81.
+    // η = (d/D)² [pub, docs/domain.md]: a 9 mm bar in a 10 mm coil fills 0.81.
     expect(fillFactorEncircling(9, 10)).toBeCloseTo(0.81, 12);
   });
 });

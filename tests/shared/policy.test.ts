@@ -4,8 +4,8 @@ import { evaluateTechnique } from '../../shared/domain/checklist/index';
 import { plateTechnique } from './checklist/techniques';
 
 describe('policy', () => {
-  it('holds the defaults DOMAIN.md gives', () => {
-    // DOMAIN.md: product default 0.5; [trade] 0.5, k = 3, 0.7 / 0.8, ±15 %; [mem] 2 / 0.5 diameters, 5–15, 5 years;
+  it('holds the defaults docs/domain.md gives', () => {
+    // docs/domain.md: product default 0.5; [trade] 0.5, k = 3, 0.7 / 0.8, ±15 %; [mem] 2 / 0.5 diameters, 5–15, 5 years;
     // [pub ISO 9712] 12 months; [pub military manual] short crack 0.5; [trade] due periods 30 / 1 / 90 days.
     expect(DEFAULT_POLICY).toMatchObject({
       orientationSensitivityMin: 0.5,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate, plateTechnique, resultOf, tubeTechnique } from './techniques';
 
-// DOMAIN.md rule 2 [pub: a published military ET manual]: cracks shorter than about half the coil diameter are hard to detect.
+// docs/domain.md rule 2 [pub: a published military ET manual]: cracks shorter than about half the coil diameter are hard to detect.
 
 describe('coil-size', () => {
   it('warns on a crack shorter than half the coil diameter, without changing the verdict', () => {

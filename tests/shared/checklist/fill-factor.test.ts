@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseTechnique } from '../../../shared/domain/checklist/index';
 import { barTechnique, evaluate, plateTechnique, resultOf, tubeTechnique } from './techniques';
 
-// Rule 5 (DOMAIN.md): η = (d/D)² encircling, (D/ID)² internal ([pub]); minimums 0.7 / 0.8 ([trade], policy); η > 1 an input error.
+// Rule 5 (docs/domain.md): η = (d/D)² encircling, (D/ID)² internal ([pub]); minimums 0.7 / 0.8 ([trade], policy); η > 1 an input error.
 
 describe('fill-factor', () => {
   it('passes the shared bobbin example at η ≈ 0.875', () => {

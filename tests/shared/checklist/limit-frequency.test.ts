@@ -2,11 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { ratioText } from '../../../shared/domain/checklist/rules/limit-frequency';
 import { barTechnique, evaluate, plateTechnique, resultOf, tubeTechnique } from './techniques';
 
-// Rule 5 (DOMAIN.md): f_g = 5066/(σ·μr·d²) ([pub]); working window f/f_g ≈ 5–15 ([mem], policy).
+// Rule 5 (docs/domain.md): f_g = 5066/(σ·μr·d²) ([pub]); working window f/f_g ≈ 5–15 ([mem], policy).
 
 describe('limit-frequency', () => {
   it('passes a 2024 bar of 2 cm at 500 Hz: f_g = 72.8 Hz, f/f_g = 6.9', () => {
-    // DOMAIN.md check value: 2024 bar d = 2 cm → f_g = 72.8 Hz.
+    // docs/domain.md check value: 2024 bar d = 2 cm → f_g = 72.8 Hz.
     const output = evaluate(barTechnique());
     expect(output.values.limitFrequencyHz).toBeCloseTo(72.8, 1);
     expect(output.values.frequencyRatio[0][0]).toBeCloseTo(6.87, 2);

@@ -4,7 +4,7 @@ import { orientationSensitivity, flawNormal } from '../../../shared/domain/orien
 import { barTechnique, evaluate, plateTechnique, resultOf, tubeTechnique } from './techniques';
 import type { TechniqueInput } from '../../../shared/domain/checklist/index';
 
-// Rule 1 (DOMAIN.md, [pub]): a flaw is found when the induced current crosses it and
+// Rule 1 (docs/domain.md, [pub]): a flaw is found when the induced current crosses it and
 // missed when it lies along the current or parallel to the surface.
 
 describe('orientation-coverage', () => {
@@ -104,7 +104,7 @@ describe('orientation-coverage', () => {
   });
 
   it('uses angleDeg: an encircling coil sees a crack at 45° (|cos 45°| = 0.71) but not at 70° (0.34)', () => {
-    // Normal of a crack at angle a to the axis is (−sin a, cos a, 0) (DOMAIN.md rule 1); encircling current is along v.
+    // Normal of a crack at angle a to the axis is (−sin a, cos a, 0) (docs/domain.md rule 1); encircling current is along v.
     const at = (angleDeg: number) =>
       evaluate(
         barTechnique({
@@ -131,7 +131,7 @@ describe('orientation-coverage', () => {
   });
 
   it('computes sensitivity as max |current · normal| for each coil type', () => {
-    // Current directions from DOMAIN.md rule 1: in-plane (surface, pencil, rotating), v only (encircling, bobbin), u and v (multidirectional).
+    // Current directions from docs/domain.md rule 1: in-plane (surface, pencil, rotating), v only (encircling, bobbin), u and v (multidirectional).
     const oblique = flawNormal('axial', 30); // (−0.5, 0.866, 0)
     expect(orientationSensitivity('surface', oblique)).toBeCloseTo(1, 12);
     expect(orientationSensitivity('encircling', oblique)).toBeCloseTo(Math.cos(Math.PI / 6), 12);

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { safeEvaluateTechnique, type RegisterFactsInput } from '../../../shared/domain/checklist/index';
 import { evaluate, plateTechnique, resultsOf } from './techniques';
 
-// DOMAIN.md rule 8: approval by an ET Level 3; performers ET Level 2 or 3 with a valid
+// docs/domain.md rule 8: approval by an ET Level 3; performers ET Level 2 or 3 with a valid
 // certificate (validity up to 5 years [mem: ISO 9712 / EN 4179]) and a near-vision exam
 // within 12 months [pub: ISO 9712]; instruments, probes and reference standards within calibration.
 // Names and dates below are invented test data.

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate, plateTechnique, resultOf, tubeTechnique } from './techniques';
 
-// Rule 2 (DOMAIN.md): a surface coil has no current under its centre; index ≤ 0.5 × coil diameter ([trade], policy).
+// Rule 2 (docs/domain.md): a surface coil has no current under its centre; index ≤ 0.5 × coil diameter ([trade], policy).
 
 describe('scan-index', () => {
   it('passes an index of half the coil diameter', () => {
