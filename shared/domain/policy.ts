@@ -226,7 +226,7 @@ export const POLICY_SETTINGS: readonly PolicySetting[] = [
     defaultValue: 1.05,
     unit: 'μr',
     basis:
-      `${TRADE} (specifications for non-magnetic grades commonly set μr ≤ 1.05; titanium alloys ≈ 1.0001 and annealed austenitic stainless ≈ 1.003–1.02 stay below it, from memory)`,
+      `${TRADE} (specifications for non-magnetic grades commonly set μr ≤ 1.05; titanium alloys ≈ 1.0001 and annealed austenitic stainless ≈ 1.003–1.02 stay below it: figures recalled, to be confirmed against the material data)`,
     min: 1.000001,
     max: 100,
   },
