@@ -5,7 +5,11 @@ import { ruleLabel } from '../../labels/rules';
 
 /** The name of each rule as people read it (one set of labels for screens, PDFs and e-mails). */
 export function ruleName(rule: string): string {
-  return ruleLabel(rule);
+  const label = ruleLabel(rule);
+  if (label !== rule) return label;
+  // A rule of a later engine, unknown here: its id in words.
+  const words = rule.replace(/[-_]+/g, ' ');
+  return words.charAt(0).toUpperCase() + words.slice(1);
 }
 
 const STATUS_WORDS: Readonly<Record<RuleStatus, string>> = { pass: 'pass', fail: 'fail', warn: 'warning', not_applicable: 'not applicable' };

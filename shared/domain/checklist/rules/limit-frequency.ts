@@ -8,7 +8,7 @@ import { fieldRelativePermeability } from '../permeability';
 import type { Rule } from '../types';
 
 const BASIS =
-  '[pub] solid cylinder f_g = 2/(π μ0 μr σ d²) = 5066/(σ[MS/m]·μr·d[cm]²) (after Förster); tube f_g from the long-coil tube model: the frequency at which the field reaching the bore lags the outer surface field by 45°, which for thin walls is the thin-walled tube formula 5066/(σ·d_i·w) [mem]; [mem] crack-detection window f/f_g ≈ 5–15 (a policy setting of the organisation)';
+  '[pub] solid cylinder f_g = 2/(π μ0 μr σ d²) = 5066/(σ[MS/m]·μr·d[cm]²) (after Förster); tube f_g from the long-coil tube model: the frequency at which the field reaching the bore lags the outer surface field by 45°, which for thin walls is the thin-walled tube formula 5066/(σ·d_i·w), recalled; [mem] crack-detection window f/f_g ≈ 5–15 (a policy setting of the organisation)';
 
 /**
  * f/f_g as text with enough digits that the text never contradicts the verdict:
