@@ -13,7 +13,7 @@ beforeAll(() => {
 });
 afterAll(() => context.close());
 
-const EXAMPLES_DIR = '/work/shared/examples';
+const EXAMPLES_DIR = path.join(import.meta.dirname, '../shared/fixtures');
 const EXAMPLES = ['wheel-bead-seat.json', 'heat-exchanger-bobbin.json'];
 const ROOT = path.resolve(import.meta.dirname, '../..');
 

@@ -1,3 +1,4 @@
+import path from 'node:path';
 // The organisation's policy over HTTP: every setting with its default and basis,
 // admin-only edits with optimistic locking, and the edit changing checklist results.
 import { readFileSync } from 'node:fs';
@@ -23,7 +24,7 @@ async function resetPolicy() {
 }
 beforeEach(resetPolicy);
 
-const BOBBIN = JSON.parse(readFileSync('/work/shared/examples/heat-exchanger-bobbin.json', 'utf8'));
+const BOBBIN = JSON.parse(readFileSync(path.join(import.meta.dirname, '../shared/fixtures/heat-exchanger-bobbin.json'), 'utf8'));
 
 describe('policy settings', () => {
   it('when anyone signed in reads the policy, then every setting shows its default, basis and current value', async () => {

@@ -1,3 +1,4 @@
+import path from 'node:path';
 // The technique register over HTTP: create, edit, approve, new revision, the
 // checklist of a stored revision, and the access ladder of each change.
 import { readFileSync } from 'node:fs';
@@ -13,7 +14,7 @@ beforeAll(() => {
 });
 afterAll(() => context.close());
 
-const EXAMPLE = JSON.parse(readFileSync('/work/shared/examples/wheel-bead-seat.json', 'utf8'));
+const EXAMPLE = JSON.parse(readFileSync(path.join(import.meta.dirname, '../shared/fixtures/wheel-bead-seat.json'), 'utf8'));
 
 /** A fresh copy of the wheel bead-seat example (it conforms) under a code of its own. */
 function exampleTechnique(overrides: Record<string, unknown> = {}) {
@@ -142,7 +143,7 @@ describe('editing a draft revision', () => {
 
   it('when the edit changes a coil type, then the stored verdict follows the engine', async () => {
     const level3 = await signedInAs(context, ['level3']);
-    const tube = JSON.parse(readFileSync('/work/shared/examples/heat-exchanger-bobbin.json', 'utf8'));
+    const tube = JSON.parse(readFileSync(path.join(import.meta.dirname, '../shared/fixtures/heat-exchanger-bobbin.json'), 'utf8'));
     const { id, body } = await createDraft(level3, { ...tube, code: `T-${randomBytes(4).toString('hex')}` });
     expect(body.revisions[0].verdict).toBe('does-not-conform');
     expect(body.revisions[0].failedRules).toContain('orientation-coverage');
@@ -250,7 +251,7 @@ describe('reading the register', () => {
   it('when anyone signed in lists and filters, then paging, sorting, state, verdict and text work on the server', async () => {
     const level3 = await signedInAs(context, ['level3']);
     const tag = `LIST${randomBytes(3).toString('hex')}`;
-    const tube = JSON.parse(readFileSync('/work/shared/examples/heat-exchanger-bobbin.json', 'utf8'));
+    const tube = JSON.parse(readFileSync(path.join(import.meta.dirname, '../shared/fixtures/heat-exchanger-bobbin.json'), 'utf8'));
     const a = await createDraft(level3, exampleTechnique({ code: `${tag}-1` }));
     await createDraft(level3, { ...tube, code: `${tag}-2` });
     const area = await makeArea();
