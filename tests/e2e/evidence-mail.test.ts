@@ -41,7 +41,10 @@ describe('evidence and mail in the browser', () => {
     const page = await context.newPage();
     await signInAs(page, 'quality@tarnbrook.example');
     await page.getByRole('heading', { level: 1 }).waitFor();
-    await page.goto(`${inject('baseUrl')}/actions/1`);
+    // An action still being worked on: evidence is frozen once an action is verified.
+    const open = await page.request.get(`${inject('baseUrl')}/api/actions?state=in_progress&pageSize=1`);
+    const [action] = ((await open.json()) as { items: { id: number }[] }).items;
+    await page.goto(`${inject('baseUrl')}/actions/${action.id}`);
     const panel = page.getByRole('region', { name: 'Evidence' });
     await panel.getByRole('heading', { name: 'Evidence' }).waitFor();
 

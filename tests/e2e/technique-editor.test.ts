@@ -159,7 +159,7 @@ describe('technique editor', () => {
     await page.getByRole('link', { name: 'Policy' }).click();
     await page.getByRole('heading', { name: 'Policy settings' }).waitFor();
     const setting = page.locator('[data-setting="fillFactorMinEncircling"]');
-    expect(await setting.textContent()).toContain('common practice, no single source');
+    expect(await setting.textContent()).toContain('Common practice, no single source');
     expect(await page.getByLabel('Minimum fill factor, encircling coil').inputValue()).toBe('0.7');
     await page.screenshot({ path: screenshotPath('policy-settings'), fullPage: true });
 
