@@ -21,11 +21,13 @@ describe('audit scope', () => {
   it('when the scope names a technique with only a draft, or a revision not in force, then the plan is refused at that technique; the revision in force is stored', async () => {
     const cast = await makeCast(context);
     const level3 = await signedInAs(context, ['level3']);
+    // Another Level 3 approves: nobody approves their own revision.
+    const approver = await signedInAs(context, ['level3']);
     const tag = randomBytes(3).toString('hex').toUpperCase();
     const draftOnly = await expectOk(await level3.post('/api/techniques').send({ technique: technique(`DRAFT-${tag}`) }), 201);
     const approved = await expectOk(await level3.post('/api/techniques').send({ technique: technique(`INFORCE-${tag}`) }), 201);
     const revision = approved.revisions[0];
-    await expectOk(await level3.post(`/api/techniques/${approved.id}/revisions/${revision.revision}/approve`).send({ version: revision.version }));
+    await expectOk(await approver.post(`/api/techniques/${approved.id}/revisions/${revision.revision}/approve`).send({ version: revision.version }));
     // A new draft revision of the approved technique: the register lists it, the audit must still cover the one in force.
     const withDraft = await expectOk(await level3.post(`/api/techniques/${approved.id}/revisions`).send({}), 201);
     const next = withDraft.revisions.find((item: { state: string }) => item.state === 'draft');

@@ -46,7 +46,7 @@ describe('dashboard', () => {
     const session = await signedInAs(context, ['technician']);
     const backwards = await session.agent.get('/api/dashboard').query({ from: '2026-12-01', to: '2026-01-01' });
     expect(backwards.status).toBe(400);
-    expect(backwards.body.error.details).toContainEqual({ path: 'from', message: 'the start date must not be after the end date' });
+    expect(backwards.body.error.details).toContainEqual(expect.objectContaining({ path: 'from', message: 'the start date must not be after the end date' }));
     expect((await session.agent.get('/api/dashboard').query({ areaId: 'x' })).status).toBe(400);
   });
 

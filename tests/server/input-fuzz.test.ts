@@ -119,6 +119,7 @@ const MULTIPART_ROUTES: [string, () => string][] = [
   ['upload evidence', () => '/api/evidence'],
   ['preview an inspection import', () => '/api/inspections/import/preview'],
   ['import inspections', () => '/api/inspections/import'],
+  ['preview a capability demonstration import', () => '/api/pod-demonstrations/import/preview'],
 ];
 
 interface Layer {

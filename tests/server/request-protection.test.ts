@@ -60,7 +60,7 @@ describe('protection on every request', () => {
     const admin = await signedInAs(context, ['admin']);
     const response = await admin.post('/api/users').send({ email: 'short@test.example', displayName: 'Short', password: 'short', roles: ['technician'] });
     expect(response.status).toBe(400);
-    expect(response.body.error.details).toEqual([{ path: 'password', message: 'use at least 12 characters' }]);
+    expect(response.body.error.details).toEqual([expect.objectContaining({ path: 'password', message: 'use at least 12 characters' })]);
   });
 
   it('when the API route is unknown, then 404 JSON', async () => {

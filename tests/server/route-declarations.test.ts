@@ -86,6 +86,8 @@ const EXPECTED_GUARDS: [string, string][] = [
   ['PATCH /pod-demonstrations/:id', 'can update Demonstration'],
   ['POST /pod-demonstrations/:id/analysis', 'can update Demonstration'],
   ['POST /pod-demonstrations/:id/acceptance', 'can approve Demonstration'],
+  // The organisation's name and time zone, for dates in its own zone.
+  ['GET /organisation', 'signed-in'],
   // Everyone reads their own messages (the service narrows to the reader's unless they are an administrator).
   ['GET /notifications', 'can read Notification'],
   ['GET /notifications/:id', 'can read Notification'],

@@ -26,10 +26,12 @@ describe('engine version on stored runs', () => {
   it('when a checklist run is stored, then it keeps the engine version, says so in words, and a re-run lists the results that changed', async () => {
     const cast = await makeCast(context);
     const level3 = await signedInAs(context, ['level3']);
+    // Another Level 3 approves: nobody approves their own revision.
+    const approver = await signedInAs(context, ['level3']);
     // TAC-ET-031 fails its edge-effect check (an unguided scan near an edge).
     const technique = { ...structuredClone(DEMO_TECHNIQUES.find((t) => t.code === 'TAC-ET-031')!), code: `LAP-${randomBytes(2).toString('hex').toUpperCase()}` } as Technique;
     const created = await expectOk(await level3.post('/api/techniques').send({ technique }), 201);
-    await expectOk(await level3.post(`/api/techniques/${created.id}/revisions/${technique.revision}/approve`).send({ version: created.revisions[0].version }));
+    await expectOk(await approver.post(`/api/techniques/${created.id}/revisions/${technique.revision}/approve`).send({ version: created.revisions[0].version }));
     const audit = await expectOk(
       await cast.auditor.post('/api/audits').send({
         title: 'Lap joint techniques',

@@ -198,7 +198,7 @@ describe('guessable passwords', () => {
     for (const password of ['password1234', 'aaaaaaaaaaaa', 'whorl-demo-2026', 'qwertyuiop123', 'abcdefghijklm']) {
       const refused = await admin.post('/api/users').send(body(password));
       expect(refused.status, password).toBe(400);
-      expect(refused.body.error.details, password).toEqual([{ path: 'password', message: expect.stringMatching(/common or breached|demo password|repeated or sequential/) }]);
+      expect(refused.body.error.details, password).toEqual([expect.objectContaining({ path: 'password', message: expect.stringMatching(/common or breached|demo password|repeated or sequential/) })]);
     }
     expect((await admin.post('/api/users').send(body('ledger harbour 2291 moss'))).status).toBe(201);
 
