@@ -23,10 +23,10 @@ describe('extent of condition and impact in the browser', () => {
     await auditor.getByRole('heading', { name: 'Browser extent: bar stock' }).waitFor();
     await sendEvent(auditor, 'Start fieldwork');
     await auditor.getByRole('button', { name: 'Run the checklist' }).click();
-    const failed = auditor.locator('li[data-status="fail"]', { hasText: 'center-effect' });
+    const failed = auditor.locator('li[data-status="fail"]', { hasText: 'Center effect' });
     await failed.waitFor();
     await failed.getByRole('button', { name: 'Raise a finding' }).click();
-    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-017: center-effect/ }).waitFor();
+    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-017: Center effect/ }).waitFor();
     const findingUrl = auditor.url();
     const findingNumber = (await auditor.getByRole('heading', { level: 1 }).textContent())!.split(':')[0];
     await sendEvent(auditor, 'Submit');
@@ -71,7 +71,7 @@ describe('extent of condition and impact in the browser', () => {
 
     // The linked finding waits for classification, with the class proposed, and points back.
     await extent.getByRole('link', { name: linkedNumber }).first().click();
-    await quality.getByRole('heading', { name: new RegExp(`^${linkedNumber}: TAC-ET-019: center-effect \\(extent of ${findingNumber}\\)`) }).waitFor();
+    await quality.getByRole('heading', { name: new RegExp(`^${linkedNumber}: TAC-ET-019: Center effect \\(extent of ${findingNumber}\\)`) }).waitFor();
     await quality.getByRole('region', { name: 'Extent of condition' }).getByRole('link', { name: findingNumber }).waitFor();
     await quality.getByRole('group', { name: 'Actions' }).getByRole('button', { name: 'Classify' }).click();
     const classify = quality.getByRole('dialog');

@@ -47,7 +47,7 @@ describe('audit scope', () => {
     const refused = await plan([{ techniqueId: approved.id, revision: revision.revision }, { techniqueId: draftOnly.id }]);
     expect(refused.status).toBe(400);
     expect(refused.body.error.details).toEqual([
-      { path: 'techniques.1.techniqueId', message: `DRAFT-${tag} has no approved revision in force (rev ${draftOnly.revisions[0].revision} is a draft)` },
+      expect.objectContaining({ path: 'techniques.1.techniqueId', message: `DRAFT-${tag} has no approved revision in force (rev ${draftOnly.revisions[0].revision} is a draft)` }),
     ]);
 
     const stale = await plan([{ techniqueId: approved.id, revision: next.revision }]);

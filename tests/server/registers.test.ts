@@ -50,12 +50,12 @@ describe('personnel certifications', () => {
     expect(badLevel.body.error.details).toContainEqual(expect.objectContaining({ path: 'level', message: 'level must be 1, 2 or 3' }));
     const backwards = await quality.post('/api/certifications').send(certificationBody(person.id, { expiresOn: '2024-01-01' }));
     expect(backwards.status).toBe(400);
-    expect(backwards.body.error.details).toContainEqual({ path: 'expiresOn', message: 'the expiry date must be after the issue date' });
+    expect(backwards.body.error.details).toContainEqual(expect.objectContaining({ path: 'expiresOn', message: 'the expiry date must be after the issue date' }));
     const unknownField = await quality.post('/api/certifications').send({ ...certificationBody(person.id), grade: 'A' });
     expect(unknownField.status).toBe(400);
     const noPerson = await quality.post('/api/certifications').send(certificationBody(99_999_999));
     expect(noPerson.status).toBe(400);
-    expect(noPerson.body.error.details).toContainEqual({ path: 'userId', message: 'no such person' });
+    expect(noPerson.body.error.details).toContainEqual(expect.objectContaining({ path: 'userId', message: 'no such person' }));
   });
 
   it('when a quality manager records and edits a certificate, then both are stored, versioned and on the trail', async () => {
