@@ -8,7 +8,8 @@ const { as } = browserSessions();
 
 describe('extent of condition and impact in the browser', () => {
   it('when a bar technique fails the center-effect check, then the quality manager finds its sister technique, raises a linked finding and decides every past inspection', async () => {
-    // The auditor audits the 25 mm bar technique and raises a finding from its failed center-effect check.
+    // The auditor audits the sister bar technique and raises a finding from its failed center-effect check.
+    // (The 25 mm bar technique, TAC-ET-017, already has an open finding for it in the demo: one per check.)
     const auditor = await as('auditor@tarnbrook.example');
     await auditor.goto(`${inject('baseUrl')}/audits`);
     await auditor.getByRole('button', { name: 'Plan an audit' }).click();
@@ -18,7 +19,7 @@ describe('extent of condition and impact in the browser', () => {
     await plan.getByLabel('Audited area').selectOption({ label: 'Receiving Inspection' });
     await plan.getByLabel('Planned start').fill(isoDay(0));
     await plan.getByLabel('Planned end').fill(isoDay(7));
-    await plan.getByLabel(/TAC-ET-017/).check();
+    await plan.getByLabel(/TAC-ET-019/).check();
     await plan.getByRole('button', { name: 'Plan the audit' }).click();
     await auditor.getByRole('heading', { name: 'Browser extent: bar stock' }).waitFor();
     await sendEvent(auditor, 'Start fieldwork');
@@ -26,7 +27,7 @@ describe('extent of condition and impact in the browser', () => {
     const failed = auditor.locator('li[data-status="fail"]', { hasText: 'Center effect' });
     await failed.waitFor();
     await failed.getByRole('button', { name: 'Raise a finding' }).click();
-    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-017: Center effect/ }).waitFor();
+    await auditor.getByRole('heading', { name: /^F-\d{4}-\d{4}: TAC-ET-019: Center effect/ }).waitFor();
     const findingUrl = auditor.url();
     const findingNumber = (await auditor.getByRole('heading', { level: 1 }).textContent())!.split(':')[0];
     await sendEvent(auditor, 'Submit');
@@ -39,11 +40,11 @@ describe('extent of condition and impact in the browser', () => {
     });
     const extent = quality.getByRole('region', { name: 'Extent of condition' });
     await extent.getByRole('button', { name: 'Look for the same weakness in other techniques' }).click();
-    const sister = extent.getByRole('row', { name: /TAC-ET-019/ });
+    const sister = extent.getByRole('row', { name: /TAC-ET-017/ });
     await sister.waitFor();
     expect(await sister.textContent()).toMatch(/centre|center/i);
-    expect(await extent.getByRole('row', { name: /TAC-ET-017/ }).textContent()).toContain('this finding');
-    await extent.getByLabel('Raise a linked finding against TAC-ET-019').check();
+    expect(await extent.getByRole('row', { name: /TAC-ET-019/ }).textContent()).toContain('this finding');
+    await extent.getByLabel('Raise a linked finding against TAC-ET-017').check();
     await extent.getByRole('button', { name: 'Raise 1 linked finding' }).click();
     const confirm = quality.getByRole('dialog');
     await confirm.getByRole('button', { name: 'Raise them' }).click();
@@ -54,7 +55,7 @@ describe('extent of condition and impact in the browser', () => {
     await extent.getByRole('link', { name: linkedNumber }).first().waitFor();
     await extent.screenshot({ path: screenshotPath('extent-of-condition') });
 
-    // The impact worksheet: TAC-ET-017 rev A's inspections since its approval, all undecided; containment is held.
+    // The impact worksheet: TAC-ET-019 rev A's inspections since its approval, all undecided; containment is held.
     const worksheet = quality.getByRole('region', { name: 'Impact on past inspections' });
     await worksheet.getByText(/cannot leave containment while \d+ inspection/).waitFor();
     expect(await quality.getByRole('group', { name: 'Actions' }).getByRole('button', { name: 'Record containment' }).count()).toBe(0);
@@ -71,7 +72,7 @@ describe('extent of condition and impact in the browser', () => {
 
     // The linked finding waits for classification, with the class proposed, and points back.
     await extent.getByRole('link', { name: linkedNumber }).first().click();
-    await quality.getByRole('heading', { name: new RegExp(`^${linkedNumber}: TAC-ET-019: Center effect \\(extent of ${findingNumber}\\)`) }).waitFor();
+    await quality.getByRole('heading', { name: new RegExp(`^${linkedNumber}: TAC-ET-017: Center effect \\(extent of ${findingNumber}\\)`) }).waitFor();
     await quality.getByRole('region', { name: 'Extent of condition' }).getByRole('link', { name: findingNumber }).waitFor();
     await quality.getByRole('group', { name: 'Actions' }).getByRole('button', { name: 'Classify' }).click();
     const classify = quality.getByRole('dialog');
