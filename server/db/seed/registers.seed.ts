@@ -145,6 +145,8 @@ export const seedRegisters: SeedStep = async (context) => {
     // The Level 3: approves techniques; ISO 9712, central certification.
     { user: 'level3', method: 'ET', level: 3, scheme: 'ISO 9712', certificateNumber: 'TRB-ET3-0142', issuedOn: day(-700), expiresOn: day(-700 + 5 * 365), nearVisionExamOn: monthsAgo(4), colourVisionCheckedOn: day(-700), sectors: 'aerospace,metal manufacturing' },
     { user: 'level3', method: 'UT', level: 2, scheme: 'ISO 9712', certificateNumber: 'TRB-UT2-0388', issuedOn: day(-1700), expiresOn: day(50), nearVisionExamOn: monthsAgo(4), colourVisionCheckedOn: day(-1700), sectors: 'aerospace' },
+    // The second Level 3: approves what the first one writes (nobody approves their own revision).
+    { user: 'level3b', method: 'ET', level: 3, scheme: 'ISO 9712', certificateNumber: 'TRB-ET3-0217', issuedOn: day(-420), expiresOn: day(-420 + 5 * 365), nearVisionExamOn: monthsAgo(2), colourVisionCheckedOn: day(-420), sectors: 'aerospace' },
     // The technician: ET Level 2 under the employer's aerospace scheme; the near-vision exam lapses in about ten days.
     { user: 'technician', method: 'ET', level: 2, scheme: 'EN 4179', certificateNumber: 'TAC-WP-ET2-017', issuedOn: day(-400), expiresOn: day(-400 + 5 * 365), nearVisionExamOn: monthsAgo(12, 10), colourVisionCheckedOn: day(-400), sectors: 'aerospace' },
     { user: 'technician', method: 'PT', level: 2, scheme: 'written practice', certificateNumber: 'TAC-WP-PT2-009', issuedOn: day(-1850), expiresOn: day(-24), nearVisionExamOn: monthsAgo(12, 10), colourVisionCheckedOn: day(-1850), sectors: 'aerospace' },
