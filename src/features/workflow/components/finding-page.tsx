@@ -14,6 +14,7 @@ import { RecordTimeline } from './record-timeline';
 import { SignatureBlock } from './signature-block';
 import { ClassBadge, DueDate, StateBadge } from './state-badge';
 import { CLASS_LABELS } from './labels';
+import { ruleLabel } from '../../../../shared/labels';
 
 /**
  * A finding's page. `evidence` is the slot for the evidence panel and
@@ -62,7 +63,7 @@ export function FindingPage({
                 ['Audit', f.auditId ? <Link className="text-lagoon underline" to={`/audits/${f.auditId}`}>{f.auditTitle}</Link> : null],
                 ['Technique', f.techniqueCode],
                 ['Area', f.areaName],
-                ['Rule or clause not met', f.rule],
+                ['Rule or clause not met', ruleLabel(f.rule)],
                 ['Requirement', f.requirement],
                 ['Objective evidence', f.objectiveEvidence],
                 ['Raised by', f.author?.displayName],
