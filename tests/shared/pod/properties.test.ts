@@ -38,7 +38,7 @@ describe('POD properties', () => {
         expect(Math.abs(Math.log(large.a50Mm / a50))).toBeLessThan(0.16);
         expect(Math.abs(Math.log(large.a90Mm / trueA90(a50, slope)))).toBeLessThan(0.24);
       }),
-      { numRuns: 8 },
+      { numRuns: 8, seed: 20261202 },
     );
     // Mean error over the same seeds at growing n.
     const meanError = (n: number) => {
@@ -62,7 +62,7 @@ describe('POD properties', () => {
         if (result.a9095Mm !== null) expect(result.a9095Mm).toBeGreaterThanOrEqual(result.a90Mm);
         else expect(result.warnings.map((w) => w.code)).toContain('no_upper_bound');
       }),
-      { numRuns: 100 },
+      { numRuns: 100, seed: 20261202 },
     );
   }, 180_000);
 
@@ -73,7 +73,7 @@ describe('POD properties', () => {
         const result = analyseHitMiss(data);
         expect(result.ok).toBe(false);
       }),
-      { numRuns: 300 },
+      { numRuns: 300, seed: 20261202 },
     );
   });
 
@@ -94,11 +94,13 @@ describe('POD properties', () => {
         if (!result.ok) return;
         const mu = (Math.log(decisionThreshold) - b0) / b1;
         const sigma = tau / b1;
-        expect(Math.abs(Math.log(result.a50Mm) - mu)).toBeLessThan(0.05);
-        expect(Math.abs(Math.log(result.a90Mm) - (mu + 1.2815515655 * sigma))).toBeLessThan(0.06);
+        // With n = 1500, censoring at both ends and σ up to 0.75, the standard error of μ is up to about
+        // 0.025 and of ln a90 about 0.03: 0.1 and 0.12 are four of them.
+        expect(Math.abs(Math.log(result.a50Mm) - mu)).toBeLessThan(0.1);
+        expect(Math.abs(Math.log(result.a90Mm) - (mu + 1.2815515655 * sigma))).toBeLessThan(0.12);
         expect(result.a9095Mm).toBeGreaterThanOrEqual(result.a90Mm);
       }),
-      { numRuns: 10 },
+      { numRuns: 10, seed: 20261202 },
     );
   }, 180_000);
 
@@ -116,7 +118,7 @@ describe('POD properties', () => {
         const profile = goldenMaximise((b1) => hitMissLogLik('logit', xs, ys, q - b1 * theta, b1), 1e-9, 10 * result.parameters.beta1);
         expect(2 * (result.convergence.logLikelihood - profile.value)).toBeCloseTo(2.7055434541, 6);
       }),
-      { numRuns: 20 },
+      { numRuns: 20, seed: 20261202 },
     );
   }, 180_000);
 });
